@@ -1,0 +1,18 @@
+// Bundles the server entry points for production: our code bundled, npm packages left external.
+import { build } from 'esbuild';
+
+await build({
+  entryPoints: {
+    main: 'server/main.ts',
+    migrate: 'server/db/migrate.ts',
+  },
+  outdir: 'dist/server',
+  bundle: true,
+  platform: 'node',
+  format: 'esm',
+  target: 'node20',
+  packages: 'external',
+  sourcemap: true,
+  logLevel: 'warning',
+  tsconfig: 'tsconfig.json',
+});

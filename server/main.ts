@@ -1,0 +1,27 @@
+import type { AddressInfo } from 'node:net';
+import { createApp } from './app.ts';
+import { loadEnv } from './config/env.ts';
+import { createDatabase } from './db/client.ts';
+import { createLogger } from './http/logger.ts';
+
+const env = loadEnv();
+const logger = createLogger(env.LOG_LEVEL);
+const database = createDatabase(env.DATABASE_URL);
+const clientDir = env.CLIENT_DIR ?? (env.NODE_ENV === 'production' ? 'dist/client' : undefined);
+const app = createApp({ database, logger, clientDir });
+
+const server = app.listen(env.PORT, env.HOST, () => {
+  const { port } = server.address() as AddressInfo;
+  logger.info({ port }, 'listening');
+  console.log(`Stablehand is serving at http://${env.HOST}:${port}/`);
+});
+
+function shutdown(signal: string) {
+  logger.info({ signal }, 'shutting down');
+  server.close(() => {
+    void database.pool.end().finally(() => process.exit(0));
+  });
+  setTimeout(() => process.exit(0), 5000).unref();
+}
+process.on('SIGTERM', () => shutdown('SIGTERM'));
+process.on('SIGINT', () => shutdown('SIGINT'));
