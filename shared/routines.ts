@@ -27,7 +27,14 @@ export const expectationSchema = z.enum(['factor', 'reject']);
 export type Expectation = z.infer<typeof expectationSchema>;
 
 /** How a single kernel call ended (never a crash of the caller). */
-export const callStatuses = ['ok', 'threw', 'timeout', 'out-of-memory', 'invalid-output', 'non-finite'] as const;
+export const callStatuses = [
+  'ok',
+  'threw',
+  'timeout',
+  'out-of-memory',
+  'invalid-output',
+  'non-finite',
+] as const;
 export const callStatusSchema = z.enum(callStatuses);
 export type CallStatus = z.infer<typeof callStatusSchema>;
 
