@@ -1,0 +1,70 @@
+/**
+ * Double-double arithmetic: a value is the unevaluated sum hi + lo of two doubles with
+ * |lo| ≤ ulp(hi)/2, giving about 106 significant bits (unit roundoff about 2^-104 for the
+ * operations below). Built on the error-free transformations of `error-free.ts`.
+ * Sources: T. J. Dekker, "A floating-point technique for extending the available precision",
+ * Numer. Math. 18 (1971) 224–242 (add2, mul2, div2); Y. Hida, X. S. Li & D. H. Bailey,
+ * "Algorithms for quad-double precision floating point arithmetic", ARITH-15 (2001), and their
+ * QD library (the IEEE-style add with two TwoSums, the accurate division). Assumes binary64
+ * round-to-nearest and no overflow or underflow, as the error-free transformations do.
+ * Every function takes the parts as separate numbers and returns a fresh [hi, lo] pair.
+ */
+import { twoProduct, twoSum } from '@sandbox/numerics/error-free.ts';
+
+/** A double-double value hi + lo with |lo| ≤ ulp(hi)/2. */
+export type DoubleDouble = [hi: number, lo: number];
+
+/**
+ * a + b = s + e exactly when |a| ≥ |b| (or a = 0), with s = fl(a + b). 3 flops.
+ * Method: Dekker 1971 (FastTwoSum, "quick-two-sum" in QD); Knuth, TAOCP vol. 2, §4.2.2.
+ */
+export function fastTwoSum(a: number, b: number): DoubleDouble {
+  const s = a + b;
+  return [s, b - (s - a)];
+}
+
+/**
+ * (ah + al) + (bh + bl), relative error about 2u² (QD's IEEE add: Hida, Li & Bailey 2001, §3;
+ * TwoSum of Knuth, TAOCP vol. 2, §4.2.2). About 20 flops.
+ */
+export function ddAdd(ah: number, al: number, bh: number, bl: number): DoubleDouble {
+  const [s1, s2] = twoSum(ah, bh);
+  const [t1, t2] = twoSum(al, bl);
+  const [u1, u2] = fastTwoSum(s1, s2 + t1);
+  return fastTwoSum(u1, u2 + t2);
+}
+
+/** (ah + al) − (bh + bl), as ddAdd with the second operand negated. */
+export function ddSub(ah: number, al: number, bh: number, bl: number): DoubleDouble {
+  return ddAdd(ah, al, -bh, -bl);
+}
+
+/**
+ * (ah + al) · (bh + bl), relative error about 4u² (Dekker 1971, mul2; QD's dd·dd product,
+ * Hida, Li & Bailey 2001): TwoProduct of the high parts plus the two cross terms; the al·bl
+ * term is below the result's precision and dropped. About 25 flops.
+ */
+export function ddMul(ah: number, al: number, bh: number, bl: number): DoubleDouble {
+  const [p, e] = twoProduct(ah, bh);
+  return fastTwoSum(p, e + (ah * bl + al * bh));
+}
+
+/**
+ * (ah + al) / (bh + bl) by three quotient digits with exact remainder updates (QD's accurate
+ * division; Hida, Li & Bailey 2001; Dekker 1971, div2 uses two). Relative error about a few u².
+ * Division by a zero divisor gives non-finite parts, as in double arithmetic.
+ */
+export function ddDiv(ah: number, al: number, bh: number, bl: number): DoubleDouble {
+  const q1 = ah / bh;
+  let [rh, rl] = ddSub(ah, al, ...ddMul(bh, bl, q1, 0));
+  const q2 = rh / bh;
+  [rh, rl] = ddSub(rh, rl, ...ddMul(bh, bl, q2, 0));
+  const q3 = rh / bh;
+  const [h, l] = fastTwoSum(q1, q2);
+  return ddAdd(h, l, q3, 0);
+}
+
+/** Rounds hi + lo to the nearest double (for a normalised pair this is hi + lo in double). */
+export function ddToNumber(hi: number, lo: number): number {
+  return hi + lo;
+}

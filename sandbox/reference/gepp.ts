@@ -1,0 +1,129 @@
+/**
+ * The reference solver's own LU factorisation with partial pivoting (GEPP) in double, and the
+ * solves with its factors. Dense row-major n×n storage: entry (i, j) is a[i*n + j]. The packed
+ * factor `lu` holds L (unit lower triangular, diagonal implied) strictly below the diagonal and
+ * U on and above it; row i of PA is row perm[i] of A (product.md's convention), so PA = LU.
+ */
+import {
+  solveLowerUnit,
+  solveLowerUnitTransposed,
+  solveUpper,
+} from '@sandbox/numerics/triangular-solve.ts';
+
+/** GEPP factors, or the first exactly zero pivot (0-based column index). */
+export type GeppResult =
+  | { ok: true; lu: Float64Array; perm: Int32Array }
+  | { ok: false; reason: 'singular'; column: number };
+
+function checkSquare(a: ArrayLike<number>, n: number, name: string): void {
+  if (!Number.isInteger(n) || n < 0)
+    throw new RangeError(`n must be a non-negative integer, got ${n}`);
+  if (a.length !== n * n)
+    throw new RangeError(`${name} must hold n*n = ${n * n} entries, has ${a.length}`);
+}
+
+function checkVector(b: ArrayLike<number>, n: number, name: string): void {
+  if (b.length !== n) throw new RangeError(`${name} must have length n = ${n}, has ${b.length}`);
+}
+
+function checkPermutation(perm: Int32Array, n: number): void {
+  if (perm.length !== n) throw new RangeError(`perm must have length n = ${n}, has ${perm.length}`);
+  for (let i = 0; i < n; i++)
+    if (perm[i]! < 0 || perm[i]! >= n) throw new RangeError(`perm[${i}] = ${perm[i]} out of range`);
+}
+
+/**
+ * PA = LU by Gaussian elimination with partial pivoting, right-looking (kij) order.
+ * Layout: a is n×n row-major (a[i*n + j]) and is not mutated. Cost 2n³/3 flops.
+ * Method: at step k the pivot is the first row i ≥ k of maximal |a_ik| (the lowest index among
+ * equal magnitudes, as LAPACK's IDAMAX), rows are swapped, multipliers l_ik = a_ik/a_kk stored,
+ * and the trailing block updated (Golub & Van Loan, Matrix Computations, 4th ed., §3.4.3;
+ * Higham, ASNA 2nd ed., §9.1, from memory). Stops at the first exactly zero pivot and returns
+ * `{ ok: false, reason: 'singular', column: k }`, like LAPACK DGETF2's INFO = k + 1.
+ * Non-finite entries propagate; the caller decides what to do with them.
+ */
+export function luFactorPartialPivoting(a: ArrayLike<number>, n: number): GeppResult {
+  checkSquare(a, n, 'a');
+  const lu = Float64Array.from(a);
+  const perm = new Int32Array(n);
+  for (let i = 0; i < n; i++) perm[i] = i;
+  for (let k = 0; k < n; k++) {
+    // First maximum: strict '>' keeps the lowest row index among ties.
+    let p = k;
+    let max = Math.abs(lu[k * n + k]!);
+    for (let i = k + 1; i < n; i++) {
+      const v = Math.abs(lu[i * n + k]!);
+      if (v > max) {
+        max = v;
+        p = i;
+      }
+    }
+    if (max === 0) return { ok: false, reason: 'singular', column: k };
+    if (p !== k) {
+      for (let j = 0; j < n; j++) {
+        const t = lu[k * n + j]!;
+        lu[k * n + j] = lu[p * n + j]!;
+        lu[p * n + j] = t;
+      }
+      const t = perm[k]!;
+      perm[k] = perm[p]!;
+      perm[p] = t;
+    }
+    const pivot = lu[k * n + k]!;
+    for (let i = k + 1; i < n; i++) {
+      const l = lu[i * n + k]! / pivot;
+      lu[i * n + k] = l;
+      if (l === 0) continue;
+      for (let j = k + 1; j < n; j++) lu[i * n + j]! -= l * lu[k * n + j]!;
+    }
+  }
+  return { ok: true, lu, perm };
+}
+
+/**
+ * Solves A x = b from GEPP factors (PA = LU): x = U⁻¹ L⁻¹ P b.
+ * Layout: lu packed n×n row-major as returned by luFactorPartialPivoting; b has length n and is
+ * not mutated. Cost 2n² flops. Method: permutation, then the harness's trusted forward and back
+ * substitutions (Golub & Van Loan, 4th ed., §3.1 and §3.4.5, from memory).
+ */
+export function luSolve(
+  lu: ArrayLike<number>,
+  perm: Int32Array,
+  b: ArrayLike<number>,
+  n: number,
+): Float64Array {
+  checkSquare(lu, n, 'lu');
+  checkVector(b, n, 'b');
+  checkPermutation(perm, n);
+  const pb = new Float64Array(n);
+  for (let i = 0; i < n; i++) pb[i] = b[perm[i]!]!;
+  return solveUpper(lu, solveLowerUnit(lu, pb, n), n);
+}
+
+/**
+ * Solves Aᵀ x = b from GEPP factors: Aᵀ = Uᵀ Lᵀ P, so x = Pᵀ L⁻ᵀ U⁻ᵀ b.
+ * Layout as luSolve. Cost 2n² flops. Method: forward substitution with Uᵀ (read column-wise
+ * from the upper part), the trusted back substitution with Lᵀ, then x[perm[i]] = z[i]
+ * (Golub & Van Loan, 4th ed., §3.1, from memory; the transposed solve of LAPACK DGETRS).
+ */
+export function luSolveTransposed(
+  lu: ArrayLike<number>,
+  perm: Int32Array,
+  b: ArrayLike<number>,
+  n: number,
+): Float64Array {
+  checkSquare(lu, n, 'lu');
+  checkVector(b, n, 'b');
+  checkPermutation(perm, n);
+  // Uᵀ w = b: row i of Uᵀ is column i of U, entries lu[j*n + i] for j ≤ i.
+  const w = Float64Array.from(b);
+  for (let i = 0; i < n; i++) {
+    let s = w[i]!;
+    for (let j = 0; j < i; j++) s -= lu[j * n + i]! * w[j]!;
+    w[i] = s / lu[i * n + i]!;
+  }
+  const z = solveLowerUnitTransposed(lu, w, n);
+  const x = new Float64Array(n);
+  for (let i = 0; i < n; i++) x[perm[i]!] = z[i]!;
+  return x;
+}

@@ -1,0 +1,109 @@
+/**
+ * The engine's reference solver for A x = b: the x_ref against which forward errors are
+ * measured, with a flag saying whether it can be trusted. Dense row-major n×n storage: entry
+ * (i, j) of A is a[i*n + j]. See numerics.md, "Reference solver".
+ */
+import { norm1 } from '@sandbox/numerics/norms.ts';
+import { UNIT_ROUNDOFF } from '@sandbox/numerics/unit-roundoff.ts';
+import { conditionEstimate1FromLu } from '@sandbox/reference/condition-estimate.ts';
+import { luFactorPartialPivoting, luSolve } from '@sandbox/reference/gepp.ts';
+import { refineSolution } from '@sandbox/reference/iterative-refinement.ts';
+import { luFactorDoubleDouble, luSolveDoubleDouble } from '@sandbox/reference/lu-double-double.ts';
+
+/**
+ * Condition estimates at or above this are "κ·u ≳ 1" and make the reference untrusted:
+ * 1/(16u) = 2^49 ≈ 5.6e14. A margin of an order of magnitude below κu = 1 (common practice).
+ */
+export const TRUSTED_CONDITION_LIMIT = 1 / (16 * UNIT_ROUNDOFF);
+
+/** The reference solution and how far to believe it. */
+export interface ReferenceSolution {
+  x: Float64Array;
+  /** False when κ₁ estimate ≥ TRUSTED_CONDITION_LIMIT, the matrix is singular in double, or
+   *  refinement did not converge; forward-error metrics are then marked untrustworthy. */
+  trusted: boolean;
+  /** Refinement corrections applied (by the method that produced x). */
+  steps: number;
+  method: 'gepp+refinement' | 'double-double-lu';
+  /** κ₁ estimate from the double GEPP factors (Infinity if GEPP met a zero pivot). */
+  conditionEstimate: number;
+  /** Why the solution is not trusted; absent when trusted. */
+  reason?: string;
+}
+
+function checkArguments(a: ArrayLike<number>, n: number, b: ArrayLike<number>): void {
+  if (!Number.isInteger(n) || n < 0)
+    throw new RangeError(`n must be a non-negative integer, got ${n}`);
+  if (a.length !== n * n)
+    throw new RangeError(`a must hold n*n = ${n * n} entries, has ${a.length}`);
+  if (b.length !== n) throw new RangeError(`b must have length n = ${n}, has ${b.length}`);
+  for (let k = 0; k < a.length; k++)
+    if (!Number.isFinite(a[k]!)) throw new RangeError(`a must be finite; a[${k}] = ${a[k]}`);
+  for (let k = 0; k < n; k++)
+    if (!Number.isFinite(b[k]!)) throw new RangeError(`b must be finite; b[${k}] = ${b[k]}`);
+}
+
+function untrustedReason(converged: boolean, kappa: number, zeroPivot: number): string | null {
+  if (zeroPivot >= 0) return `GEPP in double met an exactly zero pivot in column ${zeroPivot}`;
+  if (!converged) return 'refinement did not converge, even with double-double factors';
+  if (!(kappa < TRUSTED_CONDITION_LIMIT))
+    return `condition estimate ${kappa.toPrecision(3)} is at least 1/(16u) ≈ 5.6e14`;
+  return null;
+}
+
+/**
+ * Solves A x = b for the reference value x_ref.
+ * Layout: a is n×n row-major (a[i*n + j]), b length n; inputs must be finite and are not
+ * mutated. Cost 2n³/3 flops for GEPP, about 10n² for the condition estimate, about 27n² per
+ * refinement step; in the fallback, 2n³/3 double-double operations more.
+ * Method: GEPP in double (first-maximum pivot), then iterative refinement with double-double
+ * residuals (at most 10 steps; stop when the correction no longer halves or is at the rounding
+ * level of x; cf. LAPACK DGERFS; Higham, ASNA 2nd ed., ch. 12, from memory). If that does not
+ * converge, or GEPP meets an exactly zero pivot, GEPP in double-double arithmetic with
+ * refinement using double-double residuals and corrections, rounded at the end. Trusted when it
+ * converged and the κ₁ estimate (Hager 1984; Higham 1988) is below 1/(16u) (common practice).
+ * A singular matrix (zero pivot even in double-double) gives x of NaN and trusted = false.
+ */
+export function referenceSolve(
+  a: ArrayLike<number>,
+  n: number,
+  b: ArrayLike<number>,
+): ReferenceSolution {
+  checkArguments(a, n, b);
+  let kappa = 1;
+  let zeroPivot = -1;
+  const f = luFactorPartialPivoting(a, n);
+  if (f.ok) {
+    kappa = conditionEstimate1FromLu(f.lu, f.perm, n, norm1(a, n, n));
+    const x0 = luSolve(f.lu, f.perm, b, n);
+    const out = refineSolution(a, n, b, x0, (rHi) => luSolve(f.lu, f.perm, rHi, n));
+    if (out.converged) {
+      const reason = untrustedReason(true, kappa, -1);
+      const result = { x: out.x, steps: out.steps, method: 'gepp+refinement' as const };
+      return reason === null
+        ? { ...result, trusted: true, conditionEstimate: kappa }
+        : { ...result, trusted: false, conditionEstimate: kappa, reason };
+    }
+  } else {
+    kappa = Infinity;
+    zeroPivot = f.column;
+  }
+  const g = luFactorDoubleDouble(a, n);
+  if (!g.ok) {
+    return {
+      x: new Float64Array(n).fill(NaN),
+      trusted: false,
+      steps: 0,
+      method: 'double-double-lu',
+      conditionEstimate: Infinity,
+      reason: `singular: exactly zero pivot in column ${g.column} even in double-double`,
+    };
+  }
+  const x0 = luSolveDoubleDouble(g, b, new Float64Array(n), n).hi;
+  const out = refineSolution(a, n, b, x0, (rHi, rLo) => luSolveDoubleDouble(g, rHi, rLo, n).hi);
+  const reason = untrustedReason(out.converged, kappa, zeroPivot);
+  const result = { x: out.x, steps: out.steps, method: 'double-double-lu' as const };
+  return reason === null
+    ? { ...result, trusted: true, conditionEstimate: kappa }
+    : { ...result, trusted: false, conditionEstimate: kappa, reason };
+}

@@ -1,0 +1,67 @@
+/**
+ * How many timed rounds and warm-up calls to spend on one size. Rounds are cheap at small n, so a
+ * fixed time budget buys many there and few at large n (numerics.md, "Timing"). The bounds are
+ * common practice: at least 11 rounds, so that the exact 95 % signed-rank interval exists (it needs
+ * at least 6) with some room to spare; at most 201, beyond which the interval narrows only slowly
+ * (like 1/√R) while drift of a busy machine grows with the time spent.
+ */
+
+export const MIN_ROUNDS = 11;
+export const MAX_ROUNDS = 201;
+export const MIN_WARMUP = 5;
+export const MAX_WARMUP = 30;
+
+/** Warm-up should cover at least this much run time, as well as MIN_WARMUP calls (common practice). */
+export const WARMUP_TIME_MS = 100;
+
+export interface RoundsOptions {
+  /** Time to spend on the timed rounds of this size, in ms. */
+  budgetMs: number;
+  /** Measured cost of one round (all kernels' calls in it), in ms, e.g. from the last warm-up calls. */
+  roundMs: number;
+  minRounds?: number;
+  maxRounds?: number;
+}
+
+function clamp(value: number, lo: number, hi: number): number {
+  return Math.min(hi, Math.max(lo, value));
+}
+
+/**
+ * R = clamp(⌊budgetMs/roundMs⌋, minRounds, maxRounds): as many rounds as fit in the budget, within
+ * the bounds (the minimum wins over the budget; roundMs = 0, a call below the timer's resolution,
+ * gives maxRounds). Cost O(1). Throws RangeError when budgetMs or roundMs is negative or not
+ * finite, or the bounds are not integers with
+ * 1 ≤ minRounds ≤ maxRounds.
+ */
+export function chooseRounds(options: RoundsOptions): number {
+  const { budgetMs, roundMs, minRounds = MIN_ROUNDS, maxRounds = MAX_ROUNDS } = options;
+  if (!(budgetMs >= 0 && Number.isFinite(budgetMs))) {
+    throw new RangeError(`budgetMs must be ≥ 0 and finite, got ${budgetMs}`);
+  }
+  if (!(roundMs >= 0 && Number.isFinite(roundMs))) {
+    throw new RangeError(`roundMs must be ≥ 0 and finite, got ${roundMs}`);
+  }
+  if (!Number.isInteger(minRounds) || minRounds < 1) {
+    throw new RangeError(`minRounds must be a positive integer, got ${minRounds}`);
+  }
+  if (!Number.isInteger(maxRounds) || maxRounds < minRounds) {
+    throw new RangeError(`maxRounds must be an integer ≥ minRounds, got ${maxRounds}`);
+  }
+  if (roundMs === 0) return maxRounds;
+  return clamp(Math.floor(budgetMs / roundMs), minRounds, maxRounds);
+}
+
+/**
+ * Warm-up calls per kernel for one size, from the time of its first call:
+ * clamp(⌈WARMUP_TIME_MS/firstCallMs⌉, MIN_WARMUP, MAX_WARMUP). The first call includes compilation
+ * and so overstates the warm time (stack.md: 29 ms against 0.85 ms for LU at n = 128), which only
+ * errs towards fewer warm-up calls at large n, where each call runs long loops that V8 optimises on
+ * stack (common practice). Throws RangeError when firstCallMs is negative or not finite.
+ */
+export function chooseWarmup(firstCallMs: number): number {
+  if (!(firstCallMs >= 0 && Number.isFinite(firstCallMs))) {
+    throw new RangeError(`firstCallMs must be ≥ 0 and finite, got ${firstCallMs}`);
+  }
+  return clamp(Math.ceil(WARMUP_TIME_MS / firstCallMs), MIN_WARMUP, MAX_WARMUP);
+}

@@ -1,0 +1,218 @@
+import { performance } from 'node:perf_hooks';
+import { defaultAcceptancePolicy, type AcceptancePolicy } from '@shared/acceptance-policy.ts';
+import type { RoutineSlug } from '@shared/routines.ts';
+import type {
+  Diagnostic,
+  MatrixReport,
+  PhaseTimes,
+  TimingReport,
+  TrialReport,
+} from '@shared/trial-report.ts';
+import { loadKernel, type KernelInstance } from './isolate/kernel-runner.ts';
+import type { ReferenceMatrix } from './matrices/reference-matrix.ts';
+import { machineFingerprint } from './timing/machine.ts';
+import { evaluatePolicy } from './policy/evaluate-policy.ts';
+import { evaluateCase } from './trial/evaluate-case.ts';
+import { prepareCase } from './trial/prepare-case.ts';
+import { runTrialTiming } from './trial/trial-timing.ts';
+
+export interface TrialProgress {
+  phase: 'compile' | 'accuracy' | 'timing' | 'verdict';
+  done: number;
+  total: number;
+  label?: string;
+}
+
+export interface TrialInput {
+  routine: RoutineSlug;
+  candidateSource: string;
+  incumbentSource?: string | null;
+  setName: string;
+  matrices: ReferenceMatrix[];
+  timingSizes: number[];
+  policy?: AcceptancePolicy;
+  /** Skip the timing rounds (accuracy only). */
+  timing?: boolean;
+  /** Time budget per timing size in ms (both kernels together). */
+  timingBudgetMs?: number;
+  callTimeoutMs?: number;
+  memoryLimitMb?: number;
+  seed?: number;
+  onProgress?: (progress: TrialProgress) => void;
+}
+
+const emptyPhases = (): PhaseTimes => ({
+  compileMs: 0,
+  matricesMs: 0,
+  kernelMs: 0,
+  referenceMs: 0,
+  metricsMs: 0,
+  timingMs: 0,
+  totalMs: 0,
+});
+
+/**
+ * Runs one trial: compile and type-check both kernels, run every applicable matrix in the
+ * candidate's and the incumbent's isolates, measure against the reference solver, time the two
+ * interleaved, and judge the result by the acceptance policy. Never throws for a kernel's sake:
+ * every failure of a kernel ends as a status in the report.
+ */
+export async function runTrial(input: TrialInput): Promise<TrialReport> {
+  const started = performance.now();
+  const policy = input.policy ?? defaultAcceptancePolicy;
+  const phases = emptyPhases();
+  const progress = input.onProgress ?? (() => {});
+  const base = {
+    routine: input.routine,
+    set: input.setName,
+    machine: machineFingerprint(),
+    startedAt: new Date().toISOString(),
+  };
+  const limits = {
+    callTimeoutMs: input.callTimeoutMs ?? 10_000,
+    memoryLimitMb: input.memoryLimitMb ?? 256,
+  };
+
+  progress({ phase: 'compile', done: 0, total: input.incumbentSource ? 2 : 1 });
+  const t0 = performance.now();
+  const candidateLoad = await loadKernel({
+    source: input.candidateSource,
+    routine: input.routine,
+    limits,
+  });
+  const incumbentLoad = input.incumbentSource
+    ? await loadKernel({ source: input.incumbentSource, routine: input.routine, limits })
+    : null;
+  phases.compileMs = performance.now() - t0;
+  const diagnostics = {
+    candidate: candidateLoad.diagnostics as Diagnostic[],
+    incumbent: (incumbentLoad?.diagnostics ?? []) as Diagnostic[],
+  };
+  const kernels: KernelInstance[] = [];
+  try {
+    if (!candidateLoad.ok) {
+      return failedReport(
+        base,
+        phases,
+        started,
+        diagnostics,
+        `the candidate did not compile: ${candidateLoad.message}`,
+      );
+    }
+    kernels.push(candidateLoad.kernel);
+    const incumbent = incumbentLoad?.ok ? incumbentLoad.kernel : null;
+    if (incumbent) kernels.push(incumbent);
+
+    const matrices = await runAccuracy(
+      input,
+      candidateLoad.kernel,
+      incumbent,
+      policy,
+      phases,
+      progress,
+    );
+    if (matrices.length > 0 && !matrices.some((m) => m.candidate.status === 'ok')) {
+      const first = matrices[0]!.candidate;
+      return {
+        ...failedReport(
+          base,
+          phases,
+          started,
+          diagnostics,
+          `the kernel produced no result on any matrix (first: ${first.status}${first.message ? `: ${first.message}` : ''})`,
+        ),
+        matrices,
+      };
+    }
+
+    let timing: TimingReport[] = [];
+    if (input.timing !== false && input.timingSizes.length > 0) {
+      const t1 = performance.now();
+      timing = await runTrialTiming({
+        routine: input.routine,
+        sizes: input.timingSizes,
+        candidate: candidateLoad.kernel,
+        incumbent,
+        seed: input.seed ?? 1,
+        budgetMs: input.timingBudgetMs,
+        margin: policy.timingMargin,
+        onProgress: (done, total, n) =>
+          progress({ phase: 'timing', done, total, label: `n = ${n}` }),
+      });
+      phases.timingMs = performance.now() - t1;
+    }
+
+    progress({ phase: 'verdict', done: 1, total: 1 });
+    phases.totalMs = performance.now() - started;
+    const message =
+      incumbentLoad && !incumbentLoad.ok
+        ? `The incumbent could not be loaded: ${incumbentLoad.message}`
+        : undefined;
+    return {
+      ...base,
+      status: 'completed',
+      ...(message ? { message } : {}),
+      phases,
+      diagnostics,
+      matrices,
+      timing,
+      verdict: evaluatePolicy(matrices, timing, policy),
+    };
+  } finally {
+    for (const k of kernels) k.dispose();
+  }
+}
+
+async function runAccuracy(
+  input: TrialInput,
+  candidate: KernelInstance,
+  incumbent: KernelInstance | null,
+  policy: AcceptancePolicy,
+  phases: PhaseTimes,
+  progress: (p: TrialProgress) => void,
+): Promise<MatrixReport[]> {
+  const applicable = input.matrices.filter(
+    (m) => m.properties.expectations[input.routine] !== undefined,
+  );
+  const reports: MatrixReport[] = [];
+  for (const [index, matrix] of applicable.entries()) {
+    progress({ phase: 'accuracy', done: index, total: applicable.length, label: matrix.id });
+    const t0 = performance.now();
+    const prepared = prepareCase(matrix, input.routine, (input.seed ?? 1) + index);
+    phases.referenceMs += performance.now() - t0;
+    if (!prepared) continue;
+    reports.push(await evaluateCase(prepared, input.routine, candidate, incumbent, policy, phases));
+  }
+  progress({ phase: 'accuracy', done: applicable.length, total: applicable.length });
+  return reports;
+}
+
+function failedReport(
+  base: Pick<TrialReport, 'routine' | 'set' | 'machine' | 'startedAt'>,
+  phases: PhaseTimes,
+  started: number,
+  diagnostics: TrialReport['diagnostics'],
+  message: string,
+): TrialReport {
+  phases.totalMs = performance.now() - started;
+  return {
+    ...base,
+    status: 'trial-failed',
+    message,
+    phases,
+    diagnostics,
+    matrices: [],
+    timing: [],
+    verdict: {
+      passed: false,
+      rules: [
+        {
+          rule: 'factor-accuracy',
+          passed: false,
+          offenders: [],
+          reason: `The trial could not run: ${message}.`,
+        },
+      ],
+    },
+  };
+}

@@ -1,0 +1,124 @@
+import { z } from 'zod';
+import { ruleResultSchema } from './acceptance-policy.ts';
+import {
+  callStatusSchema,
+  expectationSchema,
+  routineSlugSchema,
+  timingVerdictSchema,
+} from './routines.ts';
+
+/** Metric values; names as numerics.md defines them. Absent = does not apply or not trustworthy. */
+export const metricsSchema = z
+  .object({
+    factorRatio: z.number(),
+    componentwiseBoundRatio: z.number(),
+    growthFactor: z.number(),
+    orthogonalityRatio: z.number(),
+    solveResidualRatio: z.number(),
+    normwiseBackwardError: z.number(),
+    componentwiseBackwardError: z.number(),
+    forwardError: z.number(),
+    forwardErrorOverBound: z.number(),
+  })
+  .partial();
+
+export const kernelOutcomeSchema = z.object({
+  status: callStatusSchema,
+  message: z.string().optional(),
+  metrics: metricsSchema,
+  ms: z.number(),
+});
+export type KernelOutcome = z.infer<typeof kernelOutcomeSchema>;
+
+export const matrixReportSchema = z.object({
+  id: z.string(),
+  family: z.string(),
+  m: z.number().int(),
+  n: z.number().int(),
+  /** κ₁(A): exact where the family has it, else the 1-norm estimate; null when not defined (rectangular). */
+  condition: z.number().nullable(),
+  conditionKind: z.enum(['exact', 'estimate']).nullable(),
+  expected: expectationSchema,
+  /** False when the reference solution could not be trusted (κ·u ≳ 1): forward errors are then omitted. */
+  referenceTrusted: z.boolean(),
+  note: z.string(),
+  candidate: kernelOutcomeSchema,
+  incumbent: kernelOutcomeSchema.nullable(),
+  passed: z.boolean(),
+  /** Why the candidate failed on this matrix, in plain words; empty when it passed. */
+  failures: z.array(z.string()),
+});
+export type MatrixReport = z.infer<typeof matrixReportSchema>;
+
+const timingSideSchema = z.object({
+  medianMs: z.number(),
+  q1Ms: z.number(),
+  q3Ms: z.number(),
+  gflops: z.number(),
+});
+
+export const timingReportSchema = z.object({
+  n: z.number().int(),
+  rounds: z.number().int(),
+  candidate: z.number().nullable(),
+  incumbent: z.number().nullable(),
+  candidateDetail: timingSideSchema.nullable(),
+  incumbentDetail: timingSideSchema.nullable(),
+  ratio: z.number().nullable(),
+  ci95: z.tuple([z.number(), z.number()]).nullable(),
+  pValue: z.number().nullable(),
+  verdict: timingVerdictSchema.nullable(),
+  flags: z.array(z.string()),
+  message: z.string().optional(),
+});
+export type TimingReport = z.infer<typeof timingReportSchema>;
+
+export const machineSchema = z.object({
+  cpuModel: z.string(),
+  cores: z.number().int(),
+  totalMemoryBytes: z.number(),
+  platform: z.string(),
+  nodeVersion: z.string(),
+  v8Version: z.string(),
+  isolatedVmVersion: z.string(),
+});
+export type Machine = z.infer<typeof machineSchema>;
+
+export const diagnosticSchema = z.object({
+  line: z.number().int(),
+  column: z.number().int(),
+  code: z.number().int(),
+  message: z.string(),
+  file: z.string(),
+});
+export type Diagnostic = z.infer<typeof diagnosticSchema>;
+
+export const phaseTimesSchema = z.object({
+  compileMs: z.number(),
+  matricesMs: z.number(),
+  kernelMs: z.number(),
+  referenceMs: z.number(),
+  metricsMs: z.number(),
+  timingMs: z.number(),
+  totalMs: z.number(),
+});
+export type PhaseTimes = z.infer<typeof phaseTimesSchema>;
+
+export const trialReportSchema = z.object({
+  routine: routineSlugSchema,
+  /** `completed`, or `trial-failed` when the trial itself could not run (type error, nothing ran). */
+  status: z.enum(['completed', 'trial-failed']),
+  message: z.string().optional(),
+  set: z.string(),
+  machine: machineSchema,
+  startedAt: z.string(),
+  phases: phaseTimesSchema,
+  diagnostics: z.object({
+    candidate: z.array(diagnosticSchema),
+    incumbent: z.array(diagnosticSchema),
+  }),
+  matrices: z.array(matrixReportSchema),
+  timing: z.array(timingReportSchema),
+  verdict: z.object({ passed: z.boolean(), rules: z.array(ruleResultSchema) }),
+});
+export type TrialReport = z.infer<typeof trialReportSchema>;
