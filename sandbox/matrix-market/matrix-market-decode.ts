@@ -9,7 +9,7 @@ const LF = 0x0a;
  * forms, encoded surrogates and truncated sequences all fail). A leading byte-order mark is
  * dropped. The result still has to pass parseMatrixMarket, which rejects control characters.
  * Cost: O(bytes); on failure the offending line is found by decoding line by line, which is
- * sound because the byte 0x0A never occurs inside a multi-byte UTF-8 sequence (RFC 3629 §3).
+ * sound because the byte 0x0A never occurs inside a multi-byte UTF-8 sequence (RFC 3629 §3, from memory).
  * Throws MatrixMarketError (`file-too-large`, `invalid-utf8`) with the 1-based line;
  * TypeError if `bytes` is not a Uint8Array, RangeError if `maxBytes` is not a non-negative integer.
  */

@@ -17,10 +17,11 @@ export interface MatrixMarketLimits {
 }
 
 /**
- * Defaults. The line length follows NIST's reference reader `mmio.h`, which reads lines into a
- * buffer of MM_MAX_LINE_LENGTH = 1025 characters. The others are this service's choice
- * (common practice: bound memory by what the largest expected use needs): 2048² doubles are
- * 32 MiB, and 8 MiB of text holds a coordinate file with a few hundred thousand entries.
+ * Defaults. The line length is about that of NIST's reference reader `mmio.h`, whose line buffer
+ * holds MM_MAX_LINE_LENGTH = 1025 characters (from memory; vendored copies vary). The others are
+ * this service's choice (common practice: bound memory by what the largest expected use needs):
+ * 2048² doubles are 32 MiB, and 8 MiB of text holds a coordinate file with a few hundred thousand
+ * entries.
  */
 export const DEFAULT_MATRIX_MARKET_LIMITS: Readonly<MatrixMarketLimits> = Object.freeze({
   maxRows: 4096,

@@ -24,7 +24,7 @@ const TAB = 9;
  * `maxBytes` UTF-8 bytes, NUL and other control characters (C0 except tab and line endings,
  * DEL, C1), a carriage return not followed by a line feed, and unpaired UTF-16 surrogates (which
  * no valid UTF-8 decodes to). Cost: one pass, stopping at the first problem.
- * Method: UTF-8 lengths per code point from RFC 3629 §3 (1 byte below U+0080, 2 below U+0800,
+ * Method: UTF-8 lengths per code point from RFC 3629 §3 (from memory; 1 byte below U+0080, 2 below U+0800,
  * 4 for a surrogate pair, else 3).
  */
 export function checkMatrixMarketText(text: string, maxBytes: number): void {

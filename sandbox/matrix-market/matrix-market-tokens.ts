@@ -8,7 +8,7 @@ export function splitFields(text: string): string[] {
 
 const UNSIGNED = /^[0-9]+$/;
 const SIGNED = /^[+-]?[0-9]+$/;
-// A C decimal floating constant as strtod reads it (ISO C99 §7.20.1.3), without hexadecimal
+// A C decimal floating constant as strtod reads it (ISO C99 §7.20.1.3, from memory), without hexadecimal
 // forms, infinities and NaNs: digits with an optional point, then an optional exponent.
 const DECIMAL = /^[+-]?(?:[0-9]+\.?[0-9]*|\.[0-9]+)(?:[eE][+-]?[0-9]+)?$/;
 const NON_FINITE = /^[+-]?(?:nan|inf|infinity)$/i;

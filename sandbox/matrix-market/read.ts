@@ -33,8 +33,8 @@ export interface ParsedMatrixMarket {
  * Float64Array, entry (i, j) at data[i*n + j].
  * Supported: object `matrix`; formats `coordinate` and `array`; fields `real`, `integer`,
  * `pattern` (entries read as 1); symmetries `general`, `symmetric`, `skew-symmetric`, expanded on
- * read. The file is line 1 the banner (§2), then comment lines starting with `%`, then the size
- * line, then the data (§3); blank lines may appear anywhere after the banner. CRLF line endings,
+ * read. Line 1 is the banner (§2), then come comment lines starting with `%`, the size line and
+ * the data (§3); blank lines may appear anywhere after the banner. CRLF line endings,
  * tabs, surrounding blanks and a last line without a line ending are accepted.
  * Everything untrusted is checked before it is used: text (size in bytes, control characters,
  * unpaired surrogates), line lengths, the declared size against `limits` before allocating,

@@ -17,7 +17,7 @@ export interface WriteMatrixMarketOptions {
  * column-major order (§3.1, §3.2). With `symmetric` only entries on or below the diagonal are
  * written (the array form column by column from the diagonal down).
  * Values are written as ECMAScript's Number::toString, the shortest decimal string that reads back
- * as the same double (ECMA-262 §6.1.6.1.20), and −0 as `-0`, so parseMatrixMarket gives back the
+ * as the same double (ECMA-262 §6.1.6.1.20, from memory), and −0 as `-0`, so parseMatrixMarket gives back the
  * same bits. Coordinate files list every entry that is not +0, so −0 survives too; for the same
  * reason `symmetric` requires a_ij and a_ji to be the same double (Object.is), sign of zero included.
  * Cost: O(m·n). Throws TypeError/RangeError naming the bad argument (non-finite values included).

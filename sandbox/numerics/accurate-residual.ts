@@ -22,7 +22,8 @@ function checkArguments(
     throw new RangeError(`m must be a non-negative integer, got ${m}`);
   if (!Number.isInteger(n) || n < 0)
     throw new RangeError(`n must be a non-negative integer, got ${n}`);
-  if (a.length !== m * n) throw new RangeError(`a must hold m*n = ${m * n} entries, has ${a.length}`);
+  if (a.length !== m * n)
+    throw new RangeError(`a must hold m*n = ${m * n} entries, has ${a.length}`);
   if (x.length !== n) throw new RangeError(`x must have length n = ${n}, has ${x.length}`);
   if (b !== null && b.length !== m)
     throw new RangeError(`b must have length m = ${m}, has ${b.length}`);

@@ -1,8 +1,9 @@
+import { formatValue } from '@shared/number-format.ts';
 import type { AcceptancePolicy, RuleResult } from '@shared/acceptance-policy.ts';
 import type { MatrixReport, TimingReport } from '@shared/trial-report.ts';
 import { accuracyLosses } from './accuracy-comparison.ts';
 
-const fmt = (x: number) => (Number.isFinite(x) ? x.toPrecision(2) : String(x));
+const fmt = formatValue;
 const list = (ids: string[]) =>
   ids.length > 4 ? `${ids.slice(0, 4).join(', ')} and ${ids.length - 4} more` : ids.join(', ');
 

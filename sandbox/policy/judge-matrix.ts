@@ -1,8 +1,9 @@
+import { formatValue } from '@shared/number-format.ts';
 import type { AcceptancePolicy } from '@shared/acceptance-policy.ts';
 import type { Expectation, RoutineSlug } from '@shared/routines.ts';
 import type { KernelOutcome } from '@shared/trial-report.ts';
 
-const fmt = (x: number) => (Number.isFinite(x) ? x.toPrecision(2) : String(x));
+const fmt = formatValue;
 
 /** Plain words for a call that did not return a usable result. */
 export function describeStatus(outcome: KernelOutcome): string {

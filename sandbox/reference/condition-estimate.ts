@@ -48,12 +48,13 @@ function unitVector(n: number, j: number): Float64Array {
  * v ↦ Bᵀv (`solveTransposed`); for condition estimation B = A⁻¹ and both are solves.
  * Layout: vectors of length n; the callbacks must return new vectors. Cost at most 11 products
  * (usually 4–5). Method: Hager's 1-norm power method with Higham's refinements, step for step
- * as LAPACK DLACN2 (Higham 1988, Alg. 4.1): start from x = (1/n, …, 1/n); alternate
- * ξ = sign(Bx), z = Bᵀξ, x = e_j with j the first maximal |z_j|; stop on a repeated sign vector,
- * an estimate that does not grow, or a repeated index; at most 5 iterations; finally try
- * x_i = (−1)^i (1 + i/(n−1)) and keep 2‖Bx‖₁/(3n) if larger. One deliberate difference: when the
- * estimate decreases, the previous (larger) value is kept rather than the latest. The result is ‖Bx‖₁/‖x‖₁ for some
- * x, so it never exceeds ‖B‖₁ (up to rounding in the products); it can underestimate.
+ * as LAPACK DLACN2 (Higham 1988): start from x = (1/n, …, 1/n); alternate ξ = sign(Bx),
+ * z = Bᵀξ, x = e_j with j the first maximal |z_j|; stop on a repeated sign vector, an estimate
+ * that does not grow, or a repeated index; at most 5 iterations; finally try
+ * x_i = (−1)^i (1 + i/(n−1)) and keep 2‖Bx‖₁/(3n) if larger. One deliberate difference: when
+ * the estimate decreases, the previous (larger) value is kept rather than the latest.
+ * The result is ‖Bx‖₁/‖x‖₁ for some x, so it never exceeds ‖B‖₁ (up to rounding in the
+ * products); it can underestimate.
  */
 export function inverseNorm1Estimate(
   solve: (v: Float64Array) => Float64Array,

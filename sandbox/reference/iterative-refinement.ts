@@ -26,11 +26,11 @@ export interface RefinementOutcome {
  * Layout: a is n×n row-major (a[i*n + j]); b, x0 length n; nothing is mutated. Cost per step
  * about 25n² flops for the residual plus one correction solve.
  * Method: classical refinement with extra-precise residuals (Higham, ASNA 2nd ed., ch. 12,
- * Thm 12.1; J. H. Wilkinson, Rounding Errors in Algebraic Processes, 1963; both from memory). Stopping rule, per step with d the new correction:
- * converged when ‖d‖∞ ≤ u‖x‖∞ or when fl(x + d) = x in every component (the correction is below
- * the rounding level of x); stop unconverged, without applying d, when ‖d‖∞ has not at least
- * halved since the previous step (LAPACK DGERFS's "at least halved" test), when d is not
- * finite, or after maxSteps steps.
+ * Thm 12.1; J. H. Wilkinson, Rounding Errors in Algebraic Processes, 1963; both from memory).
+ * Stopping rule, per step with d the new correction: converged when ‖d‖∞ ≤ u‖x‖∞ or when
+ * fl(x + d) = x in every component (the correction is below the rounding level of x); stop
+ * unconverged, without applying d, when ‖d‖∞ has not at least halved since the previous step
+ * (as LAPACK DGERFS's "at least halved" test), when d is not finite, or after maxSteps steps.
  */
 export function refineSolution(
   a: ArrayLike<number>,

@@ -6,7 +6,7 @@
  * value hi + lo per entry, packed like GEPP's (L strictly below the diagonal with unit diagonal
  * implied, U on and above); row i of PA is row perm[i] of A.
  */
-import { ddDiv, ddMul, ddSub } from '@sandbox/numerics/double-double.ts';
+import { ddDiv, ddMul, ddSub, ddSubScaledInPlace } from '@sandbox/numerics/double-double.ts';
 
 /** Double-double GEPP factors, or the first exactly zero pivot (0-based column index). */
 export type LuDoubleDoubleResult =
@@ -63,11 +63,8 @@ export function luFactorDoubleDouble(a: ArrayLike<number>, n: number): LuDoubleD
       const [lh, ll] = ddDiv(hi[i * n + k]!, lo[i * n + k]!, ph, pl);
       hi[i * n + k] = lh;
       lo[i * n + k] = ll;
-      if (lh === 0) continue;
-      for (let j = k + 1; j < n; j++) {
-        const [mh, ml] = ddMul(lh, ll, hi[k * n + j]!, lo[k * n + j]!);
-        [hi[i * n + j], lo[i * n + j]] = ddSub(hi[i * n + j]!, lo[i * n + j]!, mh, ml);
-      }
+      if (lh !== 0)
+        ddSubScaledInPlace(hi, lo, i * n + k + 1, hi, lo, k * n + k + 1, n - k - 1, lh, ll);
     }
   }
   return { ok: true, hi, lo, perm };

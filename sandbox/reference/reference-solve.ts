@@ -70,7 +70,15 @@ export function referenceSolve(
   b: ArrayLike<number>,
 ): ReferenceSolution {
   checkArguments(a, n, b);
-  let kappa = 1;
+  if (n === 0)
+    return {
+      x: new Float64Array(0),
+      trusted: true,
+      steps: 0,
+      method: 'gepp+refinement',
+      conditionEstimate: 1,
+    };
+  let kappa: number;
   let zeroPivot = -1;
   const f = luFactorPartialPivoting(a, n);
   if (f.ok) {

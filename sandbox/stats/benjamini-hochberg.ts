@@ -18,10 +18,7 @@ export interface BenjaminiHochbergResult {
  * largest i with p_(i) ≤ i·q/m". Cost O(m log m). An empty input gives empty results.
  * Throws RangeError when a p-value is outside [0, 1] (or NaN) or q is outside (0, 1].
  */
-export function benjaminiHochberg(
-  pValues: readonly number[],
-  q = 0.05,
-): BenjaminiHochbergResult {
+export function benjaminiHochberg(pValues: readonly number[], q = 0.05): BenjaminiHochbergResult {
   if (!(q > 0 && q <= 1)) throw new RangeError(`q must lie in (0, 1], got ${q}`);
   const m = pValues.length;
   pValues.forEach((p, i) => {

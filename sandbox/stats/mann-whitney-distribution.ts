@@ -16,8 +16,10 @@ export const EXACT_MANN_WHITNEY_MAX = 50;
  * Throws RangeError unless m and n are non-negative integers.
  */
 export function mannWhitneyProbabilities(m: number, n: number): Float64Array {
-  if (!Number.isInteger(m) || m < 0) throw new RangeError(`m must be a non-negative integer, got ${m}`);
-  if (!Number.isInteger(n) || n < 0) throw new RangeError(`n must be a non-negative integer, got ${n}`);
+  if (!Number.isInteger(m) || m < 0)
+    throw new RangeError(`m must be a non-negative integer, got ${m}`);
+  if (!Number.isInteger(n) || n < 0)
+    throw new RangeError(`n must be a non-negative integer, got ${n}`);
   // prev[i] holds p(i, j−1, ·) of length i·(j−1) + 1; with j = 0 every distribution is U ≡ 0.
   let prev: Float64Array[] = Array.from({ length: m + 1 }, () => Float64Array.of(1));
   for (let j = 1; j <= n; j++) {

@@ -62,13 +62,23 @@ export function mannWhitneyU(
   const variance = ((m * n) / 12) * (N + 1 - tieCubeSum(tieSizes) / (N * (N - 1)));
   const exact =
     method === 'exact' ||
-    (method === 'auto' && tieSizes.length === 0 && m <= EXACT_MANN_WHITNEY_MAX && n <= EXACT_MANN_WHITNEY_MAX);
+    (method === 'auto' &&
+      tieSizes.length === 0 &&
+      m <= EXACT_MANN_WHITNEY_MAX &&
+      n <= EXACT_MANN_WHITNEY_MAX);
   if (exact) {
-    if (tieSizes.length > 0) throw new RangeError('x, y: the exact method needs samples without ties');
+    if (tieSizes.length > 0)
+      throw new RangeError('x, y: the exact method needs samples without ties');
     const probabilities = mannWhitneyProbabilities(m, n);
     const lower = lowerTailFromProbabilities(probabilities, u);
     const upper = lowerTailFromProbabilities(probabilities, m * n - u); // U is symmetric about mn/2
-    return { u, variance, method: 'exact', z: null, pValue: Math.min(1, 2 * Math.min(lower, upper)) };
+    return {
+      u,
+      variance,
+      method: 'exact',
+      z: null,
+      pValue: Math.min(1, 2 * Math.min(lower, upper)),
+    };
   }
   const deviation = u - (m * n) / 2;
   const corrected = Math.max(0, Math.abs(deviation) - (continuity ? 0.5 : 0));

@@ -67,7 +67,10 @@ export function signedRankIntervalIndex(
   if (method === 'exact' || (method === 'auto' && n <= EXACT_SIGNED_RANK_MAX_N)) {
     const counts = signedRankCountsUntied(n);
     const total = 2 ** n;
-    return indexFromProbabilities(Array.from(counts, (c) => c / total), alpha);
+    return indexFromProbabilities(
+      Array.from(counts, (c) => c / total),
+      alpha,
+    );
   }
   // E T⁺ = n(n+1)/4, Var T⁺ = n(n+1)(2n+1)/24 (HWC §3.1, from memory).
   return indexFromNormal((n * (n + 1)) / 4, Math.sqrt((n * (n + 1) * (2 * n + 1)) / 24), alpha);
@@ -86,7 +89,10 @@ export function mannWhitneyIntervalIndex(
   if (!Number.isInteger(m) || m < 1) throw new RangeError(`m must be a positive integer, got ${m}`);
   if (!Number.isInteger(n) || n < 1) throw new RangeError(`n must be a positive integer, got ${n}`);
   checkAlpha(alpha);
-  if (method === 'exact' || (method === 'auto' && m <= EXACT_MANN_WHITNEY_MAX && n <= EXACT_MANN_WHITNEY_MAX)) {
+  if (
+    method === 'exact' ||
+    (method === 'auto' && m <= EXACT_MANN_WHITNEY_MAX && n <= EXACT_MANN_WHITNEY_MAX)
+  ) {
     return indexFromProbabilities(mannWhitneyProbabilities(m, n), alpha);
   }
   // E U = mn/2, Var U = mn(m+n+1)/12 (numerics-references §8.1, no ties).

@@ -45,7 +45,8 @@ export function signedRankCounts(scores: ArrayLike<number>): Float64Array {
 
 /** Counts for the untied case, scores 1..n: c(t) for t = 0..n(n+1)/2. */
 export function signedRankCountsUntied(n: number): Float64Array {
-  if (!Number.isInteger(n) || n < 0) throw new RangeError(`n must be a non-negative integer, got ${n}`);
+  if (!Number.isInteger(n) || n < 0)
+    throw new RangeError(`n must be a non-negative integer, got ${n}`);
   return signedRankCounts(Array.from({ length: n }, (_, i) => i + 1));
 }
 

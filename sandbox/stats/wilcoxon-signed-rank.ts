@@ -75,7 +75,8 @@ export function wilcoxonSignedRank(
   let statistic = 0;
   for (let i = 0; i < n; i++) if (positive[i]) statistic += r[i]!;
   const exact = method === 'exact' || (method === 'auto' && n <= EXACT_SIGNED_RANK_MAX_N);
-  if (n === 0) return { statistic, nonZero: 0, zeros, method: exact ? 'exact' : 'normal', z: null, pValue: 1 };
+  if (n === 0)
+    return { statistic, nonZero: 0, zeros, method: exact ? 'exact' : 'normal', z: null, pValue: 1 };
   if (exact) {
     // Mid-ranks are multiples of ½, so doubled ranks are integers.
     const counts = signedRankCounts(r.map((v) => 2 * v));

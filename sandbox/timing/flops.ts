@@ -15,8 +15,10 @@ import type { RoutineSlug } from '@shared/routines.ts';
  * or when m < n for QR.
  */
 export function flopCount(routine: RoutineSlug, m: number, n: number): number {
-  if (!Number.isInteger(m) || m < 0) throw new RangeError(`m must be a non-negative integer, got ${m}`);
-  if (!Number.isInteger(n) || n < 0) throw new RangeError(`n must be a non-negative integer, got ${n}`);
+  if (!Number.isInteger(m) || m < 0)
+    throw new RangeError(`m must be a non-negative integer, got ${m}`);
+  if (!Number.isInteger(n) || n < 0)
+    throw new RangeError(`n must be a non-negative integer, got ${n}`);
   if (routine === 'householder-qr') {
     if (m < n) throw new RangeError(`m must be at least n for QR, got m = ${m}, n = ${n}`);
     return 2 * m * n * n - (2 * n * n * n) / 3; // GVL 4th ed. §5.2 (from memory)
@@ -40,6 +42,7 @@ export function flopCount(routine: RoutineSlug, m: number, n: number): number {
  * Throws RangeError when ms is not a positive finite number (and as flopCount does).
  */
 export function gflops(routine: RoutineSlug, m: number, n: number, ms: number): number {
-  if (!(ms > 0 && Number.isFinite(ms))) throw new RangeError(`ms must be positive and finite, got ${ms}`);
+  if (!(ms > 0 && Number.isFinite(ms)))
+    throw new RangeError(`ms must be positive and finite, got ${ms}`);
   return flopCount(routine, m, n) / (ms * 1e6);
 }

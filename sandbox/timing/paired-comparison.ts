@@ -83,7 +83,8 @@ export function compareTimings(
   options: ComparisonOptions = {},
 ): PairedComparison[] {
   const { margin = 0.03, confidence = 0.95 } = options;
-  if (!(margin >= 0 && Number.isFinite(margin))) throw new RangeError(`margin must be ≥ 0, got ${margin}`);
+  if (!(margin >= 0 && Number.isFinite(margin)))
+    throw new RangeError(`margin must be ≥ 0, got ${margin}`);
   if (!(confidence > 0 && confidence < 1)) {
     throw new RangeError(`confidence must lie in (0, 1), got ${confidence}`);
   }

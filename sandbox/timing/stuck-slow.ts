@@ -1,3 +1,5 @@
+import { median } from '@sandbox/stats/quantiles.ts';
+
 /**
  * Detection of a kernel "stuck slow": V8 sometimes never finishes optimising code inside an
  * isolate, which then runs 1.4–2× (once about 30×) slower for the rest of the process
@@ -14,12 +16,6 @@ export const STUCK_SLOW_FACTOR = 1.3;
 /** Fewest timed rounds for a judgement; with fewer the flag is never raised. */
 export const STUCK_SLOW_MIN_ROUNDS = 4;
 
-function medianOf(values: readonly number[]): number {
-  const sorted = [...values].sort((a, b) => a - b);
-  const mid = Math.floor(sorted.length / 2);
-  return sorted.length % 2 === 1 ? sorted[mid]! : (sorted[mid - 1]! + sorted[mid]!) / 2;
-}
-
 /**
  * True when the median of the second half of `roundMs` exceeds factor × the warm level, the warm
  * level being the minimum over `warmMs` (warm-up calls after the first, which carries compilation)
@@ -32,9 +28,10 @@ export function isStuckSlow(
   roundMs: readonly number[],
   factor = STUCK_SLOW_FACTOR,
 ): boolean {
-  if (!(factor > 1 && Number.isFinite(factor))) throw new RangeError(`factor must exceed 1, got ${factor}`);
+  if (!(factor > 1 && Number.isFinite(factor)))
+    throw new RangeError(`factor must exceed 1, got ${factor}`);
   if (roundMs.length < STUCK_SLOW_MIN_ROUNDS) return false;
   const warmLevel = Math.min(...warmMs, ...roundMs);
-  const late = medianOf(roundMs.slice(Math.floor(roundMs.length / 2)));
+  const late = median(roundMs.slice(Math.floor(roundMs.length / 2)));
   return late > factor * warmLevel;
 }

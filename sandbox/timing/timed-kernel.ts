@@ -8,8 +8,7 @@ import type { CallStatus } from '@shared/routines.ts';
 
 /** One timed call: its duration in ms (positive), or how it failed. */
 export type TimedCall =
-  | { ok: true; ms: number }
-  | { ok: false; status: CallStatus; message: string };
+  { ok: true; ms: number } | { ok: false; status: CallStatus; message: string };
 
 /** A kernel that can be called and timed on an input of type TInput (opaque to the timing code). */
 export interface TimedKernel<TInput> {

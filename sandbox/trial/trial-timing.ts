@@ -3,6 +3,7 @@ import type { TimingReport } from '@shared/trial-report.ts';
 import type { KernelInstance } from '../isolate/kernel-runner.ts';
 import { timingMatrix } from '../matrices/timing-input.ts';
 import { runInterleavedTiming, type TimedKernel } from '../timing/interleaved.ts';
+import { toTimingReport } from '../timing/timing-report.ts';
 
 export interface TrialTimingInput {
   routine: RoutineSlug;
@@ -47,7 +48,7 @@ export async function runTrialTiming(input: TrialTimingInput): Promise<TimingRep
       ...(base.b ? { b: Float64Array.from(base.b) } : {}),
     };
   };
-  return runInterleavedTiming({
+  const sizes = await runInterleavedTiming({
     routine: input.routine,
     sizes: input.sizes,
     candidate: timed(input.candidate),
@@ -55,6 +56,11 @@ export async function runTrialTiming(input: TrialTimingInput): Promise<TimingRep
     makeInput,
     ...(input.budgetMs !== undefined ? { budgetMs: input.budgetMs } : {}),
     margin: input.margin,
-    ...(input.onProgress ? { onProgress: input.onProgress } : {}),
+    onProgress: (p) => {
+      if (p.phase !== 'timing' || p.round === 0) {
+        input.onProgress?.(p.phase === 'done' ? p.sizeIndex + 1 : p.sizeIndex, p.sizeCount, p.n);
+      }
+    },
   });
+  return sizes.map(toTimingReport);
 }

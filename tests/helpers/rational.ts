@@ -53,8 +53,7 @@ export const add = (a: Rational, b: Rational): Rational =>
   rational(a.num * b.den + b.num * a.den, a.den * b.den);
 export const sub = (a: Rational, b: Rational): Rational =>
   rational(a.num * b.den - b.num * a.den, a.den * b.den);
-export const mul = (a: Rational, b: Rational): Rational =>
-  rational(a.num * b.num, a.den * b.den);
+export const mul = (a: Rational, b: Rational): Rational => rational(a.num * b.num, a.den * b.den);
 export const div = (a: Rational, b: Rational): Rational => {
   if (b.num === 0n) throw new RangeError('division by zero');
   return rational(a.num * b.den, a.den * b.num);

@@ -1,0 +1,223 @@
+import { z } from 'zod';
+import { MAX_ORDER, matrixId, resolveMatrixSpec } from '@sandbox/matrices/generate.ts';
+import type { MatrixSpec } from '@sandbox/matrices/reference-matrix.ts';
+import { familySlugs } from '@sandbox/matrices/reference-matrix.ts';
+
+/** One matrix of a set: a generated recipe or an uploaded Matrix Market file (read by the caller). */
+export type MatrixSetItem =
+  { kind: 'generated'; spec: MatrixSpec } | { kind: 'file'; path: string };
+
+/** A named list of reference matrices plus the sizes at which timing runs. */
+export interface MatrixSet {
+  name: string;
+  items: MatrixSetItem[];
+  timingSizes: number[];
+}
+
+export type NamedSetName = 'quick' | 'standard';
+
+function g(
+  family: MatrixSpec['family'],
+  n: number,
+  extra: Omit<MatrixSpec, 'family' | 'n'> = {},
+): MatrixSetItem {
+  return { kind: 'generated', spec: { family, n, ...extra } };
+}
+
+/**
+ * quick: every family at n ≤ 12 and every trap — a must-reject matrix for each routine that can
+ * reject (Householder QR never should), a tiny and a zero leading pivot, ill-conditioned, graded,
+ * worst-growth (both tie variants), scaling extremes — so a trial runs in well under a second.
+ */
+const quickItems: MatrixSetItem[] = [
+  g('uniform', 8, { seed: 1 }),
+  g('normal', 10, { seed: 2 }),
+  g('diagonally-dominant', 8, { seed: 1 }),
+  g('diagonally-dominant', 8, { seed: 2, params: { upper: 1 } }),
+  g('spd-random', 8, { seed: 1 }),
+  g('prescribed-condition', 10, { seed: 1, params: { cond: 1e10 } }),
+  g('hilbert', 8),
+  g('pascal', 8),
+  g('lehmer', 8),
+  g('minij', 8),
+  g('moler', 8),
+  g('frank', 8),
+  g('kahan', 12),
+  g('worst-growth', 12),
+  g('worst-growth', 12, { params: { alpha: 0.5 } }),
+  g('poisson-1d', 10),
+  g('poisson-2d', 9),
+  g('vandermonde', 6),
+  g('graded', 10, { seed: 1 }),
+  g('near-overflow', 6, { seed: 1 }),
+  g('near-underflow', 6, { seed: 1 }),
+  g('needs-row-exchange', 2),
+  g('needs-row-exchange', 6, { params: { pivot: 0 } }),
+  g('needs-row-exchange', 3, { params: { pivot: 1 } }),
+  g('singular', 2),
+  g('singular', 6),
+  g('nearly-singular', 3),
+  g('indefinite', 10),
+  g('indefinite', 10, { params: { sigma: 1.1 } }),
+  g('tall-random', 6, { m: 12, seed: 1 }),
+];
+
+/**
+ * standard: every family at a few sizes, most at n ≤ 64 and a handful at 128–256, so that one LU
+ * trial (candidate, incumbent and reference) stays around a minute.
+ */
+const standardItems: MatrixSetItem[] = [
+  g('uniform', 16, { seed: 1 }),
+  g('uniform', 64, { seed: 2 }),
+  g('uniform', 256, { seed: 3 }),
+  g('normal', 32, { seed: 1 }),
+  g('normal', 100, { seed: 2 }),
+  g('diagonally-dominant', 48, { seed: 1 }),
+  g('diagonally-dominant', 64, { seed: 2, params: { upper: 1 } }),
+  g('spd-random', 32, { seed: 1 }),
+  g('spd-random', 128, { seed: 2 }),
+  g('prescribed-condition', 50, { seed: 1, params: { cond: 1e2 } }),
+  g('prescribed-condition', 50, { seed: 2, params: { cond: 1e8 } }),
+  g('prescribed-condition', 64, { seed: 3, params: { cond: 1e12 } }),
+  g('prescribed-condition', 128, { seed: 4 }),
+  g('hilbert', 6),
+  g('hilbert', 10),
+  g('hilbert', 14),
+  g('pascal', 10),
+  g('pascal', 20),
+  g('pascal', 29),
+  g('lehmer', 20),
+  g('lehmer', 64),
+  g('minij', 30),
+  g('minij', 100),
+  g('moler', 10),
+  g('moler', 30),
+  g('frank', 10),
+  g('frank', 20),
+  g('kahan', 30),
+  g('kahan', 100),
+  g('worst-growth', 20),
+  g('worst-growth', 40, { params: { alpha: 0.5 } }),
+  g('worst-growth', 60),
+  g('poisson-1d', 50),
+  g('poisson-1d', 200),
+  g('poisson-2d', 64),
+  g('poisson-2d', 256),
+  g('vandermonde', 8),
+  g('vandermonde', 12),
+  g('graded', 32, { seed: 1 }),
+  g('graded', 128, { seed: 2 }),
+  g('near-overflow', 32, { seed: 1 }),
+  g('near-underflow', 32, { seed: 1 }),
+  g('needs-row-exchange', 2),
+  g('needs-row-exchange', 32),
+  g('needs-row-exchange', 16, { params: { pivot: 0 } }),
+  g('needs-row-exchange', 16, { params: { pivot: 1 } }),
+  g('singular', 2),
+  g('singular', 20),
+  g('nearly-singular', 3),
+  g('nearly-singular', 16),
+  g('nearly-singular', 3, { params: { delta: 0 } }),
+  g('indefinite', 10),
+  g('indefinite', 11),
+  g('indefinite', 50, { params: { sigma: 1.1 } }),
+  g('indefinite', 64, { params: { sigma: 0.5 } }),
+  g('tall-random', 32, { m: 64, seed: 1 }),
+  g('tall-random', 100, { m: 300, seed: 2 }),
+];
+
+/** A built-in matrix set (a fresh copy each call). */
+export function namedSet(name: NamedSetName): MatrixSet {
+  const copy = (items: MatrixSetItem[]) => items.map((item) => structuredClone(item));
+  if (name === 'quick') return { name, items: copy(quickItems), timingSizes: [16, 32] };
+  if (name === 'standard')
+    return { name, items: copy(standardItems), timingSizes: [64, 128, 256, 512] };
+  throw new RangeError(`name must be 'quick' or 'standard', got ${String(name)}`);
+}
+
+const order = z.number().int().min(1).max(MAX_ORDER);
+
+/** One entry of a matrix set given as JSON: a generated recipe, a file, or the timing sizes. */
+export const matrixSetEntrySchema = z.union([
+  z.strictObject({
+    family: z.enum(familySlugs),
+    n: order,
+    m: z.number().int().min(1).optional(),
+    seed: z.number().int().min(0).max(0xffffffff).optional(),
+    params: z.record(z.string(), z.number().finite()).optional(),
+  }),
+  z.strictObject({
+    file: z
+      .string()
+      .min(1)
+      .regex(/\.mtx$/i, 'must name a Matrix Market file (.mtx)')
+      .refine((p) => !p.startsWith('/') && !p.split(/[\\/]/).includes('..') && !p.includes('\0'), {
+        message: 'must be a relative path without ".." segments',
+      }),
+  }),
+  z.strictObject({ timing: z.array(order).min(1) }),
+]);
+
+/** A matrix set given as JSON: an array of entries, at most one of them a timing entry. */
+export const matrixSetJsonSchema = z.array(matrixSetEntrySchema);
+
+function describeIssues(error: z.ZodError): string {
+  return error.issues
+    .map((i) => (i.path.length ? `${i.path.join('.')}: ${i.message}` : i.message))
+    .join(', ');
+}
+
+/** Parses a set given as JSON, or returns every problem, each naming the entry index. */
+export function checkMatrixSetJson(
+  value: unknown,
+  name: string,
+): { ok: true; set: MatrixSet } | { ok: false; problems: string[] } {
+  if (!Array.isArray(value))
+    return { ok: false, problems: ['the set must be a JSON array of entries'] };
+  const problems: string[] = [];
+  const items: MatrixSetItem[] = [];
+  const seen = new Map<string, number>();
+  let timingSizes: number[] | undefined;
+  value.forEach((raw: unknown, index) => {
+    const parsed = matrixSetEntrySchema.safeParse(raw);
+    if (!parsed.success) {
+      problems.push(`entry ${index}: ${describeIssues(parsed.error)}`);
+      return;
+    }
+    const entry = parsed.data;
+    let key: string;
+    if ('timing' in entry) {
+      if (timingSizes) problems.push(`entry ${index}: only one timing entry is allowed`);
+      timingSizes = [...new Set(entry.timing)].sort((a, b) => a - b);
+      return;
+    } else if ('file' in entry) {
+      key = `file ${entry.file}`;
+      items.push({ kind: 'file', path: entry.file });
+    } else {
+      try {
+        key = matrixId(resolveMatrixSpec(entry));
+      } catch (error) {
+        problems.push(`entry ${index}: ${(error as Error).message}`);
+        return;
+      }
+      items.push({ kind: 'generated', spec: entry });
+    }
+    const previous = seen.get(key);
+    if (previous !== undefined) problems.push(`entry ${index}: repeats entry ${previous} (${key})`);
+    else seen.set(key, index);
+  });
+  if (problems.length) return { ok: false, problems };
+  return { ok: true, set: { name, items, timingSizes: timingSizes ?? [] } };
+}
+
+/**
+ * Parses a set given as JSON: an array of `{ family, n, m?, seed?, params? }`, `{ file }` and at
+ * most one `{ timing: [sizes] }` (no timing entry means no timing). Unknown keys, bad values and
+ * repeated matrices throw a RangeError listing every problem with its entry index.
+ */
+export function parseMatrixSetJson(value: unknown, name: string): MatrixSet {
+  const result = checkMatrixSetJson(value, name);
+  if (!result.ok)
+    throw new RangeError(`matrix set "${name}" is invalid: ${result.problems.join('; ')}`);
+  return result.set;
+}

@@ -1,0 +1,95 @@
+import { chooseRounds, chooseWarmup } from '@sandbox/timing/rounds.ts';
+import type { KernelRole, TimedKernel, TimingFailure } from '@sandbox/timing/timed-kernel.ts';
+
+/**
+ * Timing of one size: warm-up calls (discarded), then R interleaved rounds, each call on a fresh
+ * input from makeInput(n) (numerics.md, "Timing"; numerics-references §8.4: interleave so that
+ * drift hits both kernels alike, warm up and discard first calls).
+ */
+
+export interface SizeTimingPlan<TInput> {
+  n: number;
+  candidate: TimedKernel<TInput>;
+  incumbent: TimedKernel<TInput> | null;
+  makeInput: (n: number) => TInput;
+  /** Time for this size's timed rounds, in ms. */
+  budgetMs: number;
+  /** Warm-up calls per kernel; undefined: chooseWarmup(first call's time). */
+  warmup: number | undefined;
+  minRounds: number | undefined;
+  maxRounds: number | undefined;
+  onRound: (round: number, rounds: number) => void;
+}
+
+export interface RawSizeTiming {
+  /** Warm-up times per kernel, in call order (the first includes compilation). */
+  warmMs: Record<KernelRole, number[]>;
+  /** Times of the completed rounds; round r's pair is roundMs.candidate[r], roundMs.incumbent[r]. */
+  roundMs: Record<KernelRole, number[]>;
+  plannedRounds: number;
+  failure: TimingFailure | null;
+}
+
+/**
+ * The call order of round (or warm-up call) r, 0-based: candidate first when r is even,
+ * incumbent first when r is odd, so that neither kernel always runs right after the other.
+ */
+export function roundOrder(r: number, withIncumbent: boolean): KernelRole[] {
+  if (!withIncumbent) return ['candidate'];
+  return r % 2 === 0 ? ['candidate', 'incumbent'] : ['incumbent', 'candidate'];
+}
+
+/** Run warm-up and rounds for one size; stops at the first failed call. */
+export async function timeOneSize<TInput>(plan: SizeTimingPlan<TInput>): Promise<RawSizeTiming> {
+  const { n, makeInput, incumbent } = plan;
+  const kernels: Record<KernelRole, TimedKernel<TInput> | null> = {
+    candidate: plan.candidate,
+    incumbent,
+  };
+  const raw: RawSizeTiming = {
+    warmMs: { candidate: [], incumbent: [] },
+    roundMs: { candidate: [], incumbent: [] },
+    plannedRounds: 0,
+    failure: null,
+  };
+  // One pass of calls in the order of r; returns the times, or null after recording a failure.
+  const pass = async (r: number, phase: TimingFailure['phase']) => {
+    const times: Partial<Record<KernelRole, number>> = {};
+    for (const role of roundOrder(r, incumbent !== null)) {
+      const call = await kernels[role]!.time(makeInput(n));
+      if (!call.ok) {
+        raw.failure = { kernel: role, phase, status: call.status, message: call.message };
+        return null;
+      }
+      if (!(call.ms > 0 && Number.isFinite(call.ms))) {
+        throw new RangeError(
+          `${role}.time returned ms = ${call.ms}; it must be positive and finite`,
+        );
+      }
+      times[role] = call.ms;
+    }
+    return times;
+  };
+  let warmup = plan.warmup;
+  for (let w = 0; w < (warmup ?? 1); w++) {
+    const times = await pass(w, 'warm-up');
+    if (times === null) return raw;
+    for (const [role, ms] of Object.entries(times)) raw.warmMs[role as KernelRole].push(ms);
+    warmup ??= chooseWarmup(Math.max(...Object.values(times)));
+  }
+  // One round costs about the sum of each kernel's last (warmest) warm-up call.
+  const roundMs = (raw.warmMs.candidate.at(-1) ?? 0) + (raw.warmMs.incumbent.at(-1) ?? 0);
+  raw.plannedRounds = chooseRounds({
+    budgetMs: plan.budgetMs,
+    roundMs,
+    ...(plan.minRounds === undefined ? {} : { minRounds: plan.minRounds }),
+    ...(plan.maxRounds === undefined ? {} : { maxRounds: plan.maxRounds }),
+  });
+  for (let r = 0; r < raw.plannedRounds; r++) {
+    const times = await pass(r, 'timing');
+    if (times === null) return raw;
+    for (const [role, ms] of Object.entries(times)) raw.roundMs[role as KernelRole].push(ms);
+    plan.onRound(r + 1, raw.plannedRounds);
+  }
+  return raw;
+}

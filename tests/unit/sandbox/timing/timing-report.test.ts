@@ -1,0 +1,51 @@
+import { describe, expect, it } from 'vitest';
+import { timingReportSchema } from '@shared/trial-report.ts';
+import type { SizeTiming } from '@sandbox/timing/interleaved.ts';
+import { toTimingReport } from '@sandbox/timing/timing-report.ts';
+
+// Invented SizeTiming values.
+const side = { minMs: 0.9, q1Ms: 1, medianMs: 1.1, q3Ms: 1.2, gflops: 2.5 };
+const compared: SizeTiming = {
+  n: 64,
+  rounds: 31,
+  candidate: side,
+  incumbent: { ...side, medianMs: 1 },
+  ratio: 1.1,
+  ci95: [1.05, 1.15],
+  pValue: 0.001,
+  pValueAdjusted: 0.002,
+  verdict: 'slower',
+  flags: [],
+  failure: null,
+};
+
+describe('toTimingReport', () => {
+  it('gives a report that the shared schema accepts, medians beside the details', () => {
+    const report = timingReportSchema.parse(toTimingReport(compared));
+    expect(report.candidate).toBe(1.1);
+    expect(report.incumbent).toBe(1);
+    expect(report.candidateDetail).toEqual({ medianMs: 1.1, q1Ms: 1, q3Ms: 1.2, gflops: 2.5 });
+    expect(report).toMatchObject({ ratio: 1.1, ci95: [1.05, 1.15], verdict: 'slower' });
+    expect(report.message).toBeUndefined();
+  });
+
+  it('turns a failure into a message and keeps the flags', () => {
+    const failed: SizeTiming = {
+      ...compared,
+      rounds: 0,
+      candidate: null,
+      ratio: null,
+      ci95: null,
+      pValue: null,
+      pValueAdjusted: null,
+      verdict: null,
+      flags: ['candidate-failed'],
+      failure: { kernel: 'candidate', phase: 'warm-up', status: 'timeout', message: 'over 2 s' },
+    };
+    const report = timingReportSchema.parse(toTimingReport(failed));
+    expect(report.candidate).toBeNull();
+    expect(report.flags).toEqual(['candidate-failed']);
+    expect(report.message).toContain('timeout');
+    expect(report.message).toContain('over 2 s');
+  });
+});
