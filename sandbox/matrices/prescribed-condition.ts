@@ -8,7 +8,7 @@ import { randomOrthogonal } from '@sandbox/matrices/random-orthogonal.ts';
  * with DLAGGE-style random orthogonal factors, references §4.9; Higham's randsvd, ASNA §28.3, from
  * memory). So κ₂(A) = cond exactly in exact arithmetic (σ_i via Math.pow, whose bits rely on V8's
  * own fdlibm-derived implementation, from memory); the stored matrix agrees to about n·u·cond
- * relative. κ₁ is not known exactly; κ₁ ≤ n·κ₂ bounds it. Cost about 10n³ flops.
+ * relative. κ₁ is not known exactly; κ₁ ≤ n·κ₂ bounds it. Cost about 10n³ flops, hence n ≤ 1024.
  */
 export const prescribedConditionFamily: FamilyDefinition = {
   seeded: true,
@@ -20,7 +20,11 @@ export const prescribedConditionFamily: FamilyDefinition = {
     },
   },
   check: ({ n, params }) =>
-    n === 1 && params.cond !== 1 ? 'n = 1 has a single singular value: cond must be 1' : undefined,
+    n === 1 && params.cond !== 1
+      ? 'n = 1 has a single singular value: cond must be 1'
+      : n > 1024
+        ? 'prescribed-condition needs n ≤ 1024 (building it costs about 10n³ flops)'
+        : undefined,
   build({ n, params, random }) {
     const cond = params.cond!;
     const u = randomOrthogonal(n, random);

@@ -7,8 +7,9 @@
  */
 
 /**
- * Returns σ = 2^k with σ·maxAbs in [0.5, 1), k clamped to [−limit, limit]; returns 1 when
- * maxAbs is 0, negative or not finite (there is nothing sensible to scale).
+ * Returns σ = 2^k with σ·maxAbs in [0.5, 1), k clamped to [−limit, limit] (with the default
+ * limit σ·maxAbs stays below 4 even for the largest double and above 2^-52 for the smallest
+ * subnormal); returns 1 when maxAbs is 0, negative, NaN or infinite (nothing to scale).
  * Cost O(1). Method: exponent from Math.log2, corrected by exact comparisons with powers of two.
  */
 export function powerOfTwoScale(maxAbs: number, limit = 1022): number {

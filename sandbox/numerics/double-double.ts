@@ -7,7 +7,8 @@
  * "Algorithms for quad-double precision floating point arithmetic", ARITH-15 (2001), and their
  * QD library (the IEEE-style add with two TwoSums, the accurate division). Assumes binary64
  * round-to-nearest and no overflow or underflow, as the error-free transformations do.
- * Every function takes the parts as separate numbers and returns a fresh [hi, lo] pair.
+ * The scalar operations take the parts as separate numbers and return a fresh [hi, lo] pair;
+ * ddSubScaledInPlace updates arrays of parts in place (the inner loop of an elimination).
  */
 import { twoProduct, twoSum } from '@sandbox/numerics/error-free.ts';
 
@@ -24,7 +25,7 @@ export function fastTwoSum(a: number, b: number): DoubleDouble {
 }
 
 /**
- * (ah + al) + (bh + bl), relative error about 2u² (QD's IEEE add: Hida, Li & Bailey 2001, §3;
+ * (ah + al) + (bh + bl), relative error about 2u² (QD's IEEE add: Hida, Li & Bailey 2001;
  * TwoSum of Knuth, TAOCP vol. 2, §4.2.2). About 20 flops.
  */
 export function ddAdd(ah: number, al: number, bh: number, bl: number): DoubleDouble {

@@ -51,6 +51,17 @@ function untrustedReason(converged: boolean, kappa: number, zeroPivot: number): 
   return null;
 }
 
+function solution(
+  x: Float64Array,
+  steps: number,
+  method: ReferenceSolution['method'],
+  conditionEstimate: number,
+  reason: string | null,
+): ReferenceSolution {
+  const base = { x, steps, method, conditionEstimate };
+  return reason === null ? { ...base, trusted: true } : { ...base, trusted: false, reason };
+}
+
 /**
  * Solves A x = b for the reference value x_ref.
  * Layout: a is n×n row-major (a[i*n + j]), b length n; inputs must be finite and are not
@@ -59,9 +70,10 @@ function untrustedReason(converged: boolean, kappa: number, zeroPivot: number): 
  * Method: GEPP in double (first-maximum pivot), then iterative refinement with double-double
  * residuals (at most 10 steps; stop when the correction no longer halves or is at the rounding
  * level of x; cf. LAPACK DGERFS; Higham, ASNA 2nd ed., ch. 12, from memory). If that does not
- * converge, or GEPP meets an exactly zero pivot, GEPP in double-double arithmetic with
- * refinement using double-double residuals and corrections, rounded at the end. Trusted when it
- * converged and the κ₁ estimate (Hager 1984; Higham 1988) is below 1/(16u) (common practice).
+ * converge, or GEPP meets an exactly zero pivot, GEPP in double-double arithmetic, then the
+ * same refinement with corrections solved in double-double from the double-double residual.
+ * Trusted when it converged and the κ₁ estimate (Hager 1984; Higham 1988) is below 1/(16u)
+ * (common practice).
  * A singular matrix (zero pivot even in double-double) gives x of NaN and trusted = false.
  */
 export function referenceSolve(
@@ -70,14 +82,7 @@ export function referenceSolve(
   b: ArrayLike<number>,
 ): ReferenceSolution {
   checkArguments(a, n, b);
-  if (n === 0)
-    return {
-      x: new Float64Array(0),
-      trusted: true,
-      steps: 0,
-      method: 'gepp+refinement',
-      conditionEstimate: 1,
-    };
+  if (n === 0) return solution(new Float64Array(0), 0, 'gepp+refinement', 1, null);
   let kappa: number;
   let zeroPivot = -1;
   const f = luFactorPartialPivoting(a, n);
@@ -85,33 +90,20 @@ export function referenceSolve(
     kappa = conditionEstimate1FromLu(f.lu, f.perm, n, norm1(a, n, n));
     const x0 = luSolve(f.lu, f.perm, b, n);
     const out = refineSolution(a, n, b, x0, (rHi) => luSolve(f.lu, f.perm, rHi, n));
-    if (out.converged) {
-      const reason = untrustedReason(true, kappa, -1);
-      const result = { x: out.x, steps: out.steps, method: 'gepp+refinement' as const };
-      return reason === null
-        ? { ...result, trusted: true, conditionEstimate: kappa }
-        : { ...result, trusted: false, conditionEstimate: kappa, reason };
-    }
+    if (out.converged)
+      return solution(out.x, out.steps, 'gepp+refinement', kappa, untrustedReason(true, kappa, -1));
   } else {
     kappa = Infinity;
     zeroPivot = f.column;
   }
   const g = luFactorDoubleDouble(a, n);
   if (!g.ok) {
-    return {
-      x: new Float64Array(n).fill(NaN),
-      trusted: false,
-      steps: 0,
-      method: 'double-double-lu',
-      conditionEstimate: Infinity,
-      reason: `singular: exactly zero pivot in column ${g.column} even in double-double`,
-    };
+    const x = new Float64Array(n).fill(NaN);
+    const reason = `singular: exactly zero pivot in column ${g.column} even in double-double`;
+    return solution(x, 0, 'double-double-lu', Infinity, reason);
   }
   const x0 = luSolveDoubleDouble(g, b, new Float64Array(n), n).hi;
   const out = refineSolution(a, n, b, x0, (rHi, rLo) => luSolveDoubleDouble(g, rHi, rLo, n).hi);
   const reason = untrustedReason(out.converged, kappa, zeroPivot);
-  const result = { x: out.x, steps: out.steps, method: 'double-double-lu' as const };
-  return reason === null
-    ? { ...result, trusted: true, conditionEstimate: kappa }
-    : { ...result, trusted: false, conditionEstimate: kappa, reason };
+  return solution(out.x, out.steps, 'double-double-lu', kappa, reason);
 }

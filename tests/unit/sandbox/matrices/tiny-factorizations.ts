@@ -123,7 +123,10 @@ export function cholesky(a: ArrayLike<number>, n: number): { l: Float64Array; fa
 }
 
 /** LDLᵀ without pivoting; zeroPivotAt is the step whose d was exactly 0 (or not finite). */
-export function ldlt(a: ArrayLike<number>, n: number): { l: Float64Array; d: Float64Array; zeroPivotAt?: number } {
+export function ldlt(
+  a: ArrayLike<number>,
+  n: number,
+): { l: Float64Array; d: Float64Array; zeroPivotAt?: number } {
   const l = new Float64Array(n * n);
   const d = new Float64Array(n);
   for (let j = 0; j < n; j++) {
@@ -150,7 +153,8 @@ export function pivotsOf(lu: Float64Array, n: number): number[] {
 export function growthFactor(lu: Float64Array, a: ArrayLike<number>, n: number): number {
   let maxU = 0;
   let maxA = 0;
-  for (let i = 0; i < n; i++) for (let j = i; j < n; j++) maxU = Math.max(maxU, Math.abs(lu[i * n + j]!));
+  for (let i = 0; i < n; i++)
+    for (let j = i; j < n; j++) maxU = Math.max(maxU, Math.abs(lu[i * n + j]!));
   for (let k = 0; k < n * n; k++) maxA = Math.max(maxA, Math.abs(a[k]!));
   return maxU / maxA;
 }
@@ -168,7 +172,12 @@ export function luSolve(out: LuOutcome, b: ArrayLike<number>, n: number): Float6
 }
 
 /** A·x in plain double, row by row. */
-export function matVec(a: ArrayLike<number>, x: ArrayLike<number>, m: number, n: number): Float64Array {
+export function matVec(
+  a: ArrayLike<number>,
+  x: ArrayLike<number>,
+  m: number,
+  n: number,
+): Float64Array {
   const y = new Float64Array(m);
   for (let i = 0; i < m; i++) {
     let s = 0;

@@ -138,3 +138,36 @@ export function transpose(a: ArrayLike<number>, m: number, n: number): Float64Ar
   for (let i = 0; i < m; i++) for (let j = 0; j < n; j++) t[j * m + i] = a[i * n + j]!;
   return t;
 }
+
+/** LDLᵀ without pivoting in double: unit lower L (zeros above the diagonal) and d. */
+export function ldltNoPivot(a: ArrayLike<number>, n: number): { l: Float64Array; d: Float64Array } {
+  const l = new Float64Array(n * n);
+  const d = new Float64Array(n);
+  for (let j = 0; j < n; j++) {
+    let dj = a[j * n + j]!;
+    for (let k = 0; k < j; k++) dj -= l[j * n + k]! * l[j * n + k]! * d[k]!;
+    d[j] = dj;
+    l[j * n + j] = 1;
+    for (let i = j + 1; i < n; i++) {
+      let s = a[i * n + j]!;
+      for (let k = 0; k < j; k++) s -= l[i * n + k]! * d[k]! * l[j * n + k]!;
+      l[i * n + j] = s / dj;
+    }
+  }
+  return { l, d };
+}
+
+/** Back substitution for Ux = b, U upper triangular, in double. */
+export function backSubstitute(
+  u: ArrayLike<number>,
+  b: ArrayLike<number>,
+  n: number,
+): Float64Array {
+  const x = Float64Array.from(b);
+  for (let i = n - 1; i >= 0; i--) {
+    let s = x[i]!;
+    for (let j = i + 1; j < n; j++) s -= u[i * n + j]! * x[j]!;
+    x[i] = s / u[i * n + i]!;
+  }
+  return x;
+}

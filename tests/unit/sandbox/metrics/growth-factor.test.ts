@@ -94,12 +94,17 @@ describe('ldltGrowthFactor', () => {
       ),
     ).toBe(4 / 6);
     expect(ldltGrowthFactor(a, 3, l, Float64Array.of(4, NaN, 4))).toBe(Infinity);
+    // l_21 = 1e308 with d_1 = 4·2^1000: the growth 1e308·4/6 is still a double; with an
+    // unscaled A it exceeds the double range and is reported as Infinity.
+    const huge = Float64Array.of(1, 0, 0, 1e308, 1, 0, 0.5, 0.5, 1);
+    const d = Float64Array.of(4 * s, 4, 4);
+    expect(ldltGrowthFactor(a, 3, huge, d) / (1e308 * (4 / 6))).toBeCloseTo(1, 14);
     expect(
       ldltGrowthFactor(
-        a,
+        a.map((v) => v / s),
         3,
-        Float64Array.of(1, 0, 0, 1e308, 1, 0, 0.5, 0.5, 1),
-        Float64Array.of(4 * s, 4, 4),
+        huge,
+        d,
       ),
     ).toBe(Infinity);
   });

@@ -69,7 +69,7 @@ describe('luFactorPartialPivoting', () => {
     expect(exactResidual(a, f.lu, f.perm, 3).every((r) => r.num === 0n)).toBe(true);
   });
 
-  it('meets the componentwise bound |PA − LU| ≤ γ_n|L||U| exactly on random integer matrices', () => {
+  it('meets |PA − LU| ≤ γ_n|L||U| exactly on random integer matrices', () => {
     // Higham, ASNA 2nd ed., Thm 9.3 (from memory); numerics-references §11 row 5. The residual
     // is evaluated exactly with rationals, so the bound needs no fudge factor.
     let seed = 17;

@@ -117,7 +117,7 @@ describe('referenceSolve against exact rational solutions', () => {
     }
   });
 
-  it('nearly singular [[1,2,3],[4,5,6],[7,8,9+ε]]: trusted for ε = 2^-30, not for ε = 2^-48', () => {
+  it('[[1,2,3],[4,5,6],[7,8,9+ε]]: trusted for ε = 2^-30, not for ε = 2^-48', () => {
     // det = −3ε (worked by hand), so κ grows like 1/ε: about 1e11 and 6e16.
     const near = (eps: number) => [1, 2, 3, 4, 5, 6, 7, 8, 9 + eps];
     const b = [1, -1, 2];
@@ -150,7 +150,7 @@ describe('referenceSolve against exact rational solutions', () => {
     expect(Array.from(r.x).every(Number.isNaN)).toBe(true);
   });
 
-  it('falls back to double-double where double GEPP hits a rounding zero: [[3,1],[1,fl(1/3)]]', () => {
+  it('falls back to double-double on a rounding zero pivot: [[3,1],[1,fl(1/3)]]', () => {
     // Nonsingular (det = −2^-54, see lu-double-double.test.ts) but GEPP in double finds U₂₂ = 0.
     const a = [3, 1, 1, 1 / 3];
     const b = [1, 2];

@@ -1,0 +1,39 @@
+/**
+ * LU factorisation with partial pivoting, PA = LU, updating column by column.
+ * (Example kernel: what the engine must conclude about it is in example-catalog.ts.)
+ *
+ * Layout: dense row-major; entry (i, j) of the n×n matrix A is a[i*n + j]. `a` is a fresh copy,
+ * overwritten with the packed factors; row i of PA is row perm[i] of A.
+ * Cost: 2n³/3 flops, the same operations as the right-looking form. Method: Gaussian elimination
+ * with partial pivoting (Golub & Van Loan, Matrix Computations, 4th ed., §3.4, from memory) with
+ * the update loops in k, j, i order: the innermost loop walks down a column, a stride of n
+ * entries in row-major storage, so it uses the cache poorly.
+ */
+export function factor(a: Float64Array, n: number): { lu: Float64Array; perm: Int32Array } {
+  const perm = new Int32Array(n);
+  for (let i = 0; i < n; i++) perm[i] = i;
+  for (let k = 0; k < n; k++) {
+    let p = k;
+    for (let i = k + 1; i < n; i++) {
+      if (Math.abs(a[i * n + k]!) > Math.abs(a[p * n + k]!)) p = i;
+    }
+    if (a[p * n + k] === 0) throw new Error(`singular matrix: column ${k} has no nonzero pivot`);
+    if (p !== k) {
+      for (let j = 0; j < n; j++) {
+        const t = a[k * n + j]!;
+        a[k * n + j] = a[p * n + j]!;
+        a[p * n + j] = t;
+      }
+      const t = perm[k]!;
+      perm[k] = perm[p]!;
+      perm[p] = t;
+    }
+    const pivot = a[k * n + k]!;
+    for (let i = k + 1; i < n; i++) a[i * n + k] = a[i * n + k]! / pivot;
+    for (let j = k + 1; j < n; j++) {
+      const ukj = a[k * n + j]!;
+      for (let i = k + 1; i < n; i++) a[i * n + j] = a[i * n + j]! - a[i * n + k]! * ukj;
+    }
+  }
+  return { lu: a, perm };
+}
