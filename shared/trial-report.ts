@@ -87,7 +87,8 @@ export type Machine = z.infer<typeof machineSchema>;
 export const diagnosticSchema = z.object({
   line: z.number().int(),
   column: z.number().int(),
-  code: z.number().int(),
+  /** The TypeScript code, e.g. `TS2322`. */
+  code: z.string(),
   message: z.string(),
   file: z.string(),
 });

@@ -59,7 +59,7 @@ export function formatReport(report: TrialReport): string {
   if (report.status === 'trial-failed') {
     out.push('', `The trial could not run: ${report.message ?? 'unknown reason'}`);
     for (const d of report.diagnostics.candidate)
-      out.push(`  ${d.file}:${d.line}:${d.column} TS${d.code} ${d.message}`);
+      out.push(`  ${d.file}:${d.line}:${d.column} ${d.code} ${d.message}`);
   }
   if (report.matrices.length > 0) {
     const metric = headlineMetric(report);

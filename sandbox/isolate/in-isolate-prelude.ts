@@ -132,7 +132,7 @@ export const inIsolatePrelude = `(function () {
       return failure(e);
     }
     if (typeof fn !== 'function') {
-      return { s: 'missing', m: 'the kernel does not export a function named ' + exportName + ' (found ' + describe(fn) + ')' };
+      return { s: 'missing', m: 'The kernel does not export a function named ' + exportName + ' (found ' + describe(fn) + ')' };
     }
     kernel = fn;
     return { s: 'ok' };

@@ -75,7 +75,7 @@ export async function startKernelSession(
       if (loaded.s === 'oom')
         return { ok: false, status: 'out-of-memory', message: outOfMemoryMessage(limits, 'load') };
       if (loaded.s === 'missing')
-        return { ok: false, status: 'invalid-output', message: `The ${loaded.m ?? ''}.` };
+        return { ok: false, status: 'invalid-output', message: `${loaded.m ?? ''}.` };
       const message = truncateMessage(`The kernel's module threw while loading: ${loaded.m ?? ''}`);
       return { ok: false, status: 'threw', message };
     }
