@@ -1,14 +1,9 @@
 import { performance } from 'node:perf_hooks';
 import { defaultAcceptancePolicy, type AcceptancePolicy } from '@shared/acceptance-policy.ts';
 import type { RoutineSlug } from '@shared/routines.ts';
-import type {
-  Diagnostic,
-  MatrixReport,
-  PhaseTimes,
-  TimingReport,
-  TrialReport,
-} from '@shared/trial-report.ts';
-import { loadKernel, type KernelInstance } from './isolate/kernel-runner.ts';
+import type { MatrixReport, PhaseTimes, TimingReport, TrialReport } from '@shared/trial-report.ts';
+import type { KernelInstance } from './isolate/kernel-instance.ts';
+import { loadKernel } from './isolate/kernel-runner.ts';
 import type { ReferenceMatrix } from './matrices/reference-matrix.ts';
 import { machineFingerprint } from './timing/machine.ts';
 import { evaluatePolicy } from './policy/evaluate-policy.ts';
@@ -85,8 +80,8 @@ export async function runTrial(input: TrialInput): Promise<TrialReport> {
     : null;
   phases.compileMs = performance.now() - t0;
   const diagnostics = {
-    candidate: candidateLoad.diagnostics as Diagnostic[],
-    incumbent: (incumbentLoad?.diagnostics ?? []) as Diagnostic[],
+    candidate: candidateLoad.diagnostics,
+    incumbent: incumbentLoad?.diagnostics ?? [],
   };
   const kernels: KernelInstance[] = [];
   try {

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { ruleResultSchema } from './acceptance-policy.ts';
+import { kernelDiagnosticSchema } from './contracts/kernel-diagnostic.ts';
 import {
   callStatusSchema,
   expectationSchema,
@@ -39,6 +40,11 @@ export const matrixReportSchema = z.object({
   condition: z.number().nullable(),
   conditionKind: z.enum(['exact', 'estimate']).nullable(),
   expected: expectationSchema,
+  /**
+   * Growth factor of the algorithm the contract prescribes, run by the harness on this matrix;
+   * the factor-ratio threshold is scaled by max(1, referenceGrowth).
+   */
+  referenceGrowth: z.number().nullable(),
   /** False when the reference solution could not be trusted (κ·u ≳ 1): forward errors are then omitted. */
   referenceTrusted: z.boolean(),
   note: z.string(),
@@ -84,16 +90,6 @@ export const machineSchema = z.object({
 });
 export type Machine = z.infer<typeof machineSchema>;
 
-export const diagnosticSchema = z.object({
-  line: z.number().int(),
-  column: z.number().int(),
-  /** The TypeScript code, e.g. `TS2322`. */
-  code: z.string(),
-  message: z.string(),
-  file: z.string(),
-});
-export type Diagnostic = z.infer<typeof diagnosticSchema>;
-
 export const phaseTimesSchema = z.object({
   compileMs: z.number(),
   matricesMs: z.number(),
@@ -115,8 +111,8 @@ export const trialReportSchema = z.object({
   startedAt: z.string(),
   phases: phaseTimesSchema,
   diagnostics: z.object({
-    candidate: z.array(diagnosticSchema),
-    incumbent: z.array(diagnosticSchema),
+    candidate: z.array(kernelDiagnosticSchema),
+    incumbent: z.array(kernelDiagnosticSchema),
   }),
   matrices: z.array(matrixReportSchema),
   timing: z.array(timingReportSchema),

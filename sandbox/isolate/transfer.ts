@@ -3,8 +3,8 @@ import {
   notAnObjectMessage,
   promiseMessage,
   routineSignatures,
+  wrongFieldMessage,
 } from '@sandbox/contracts/routine-signatures.ts';
-import { wrongFieldMessage } from '@sandbox/contracts/routine-signatures.ts';
 import type { CallPlan, Envelope } from '@sandbox/isolate/in-isolate-prelude.ts';
 
 /** One kernel call's input, on the host: A (U for back substitution) is m×n, row-major. */

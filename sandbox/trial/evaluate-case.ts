@@ -2,7 +2,7 @@ import { performance } from 'node:perf_hooks';
 import type { AcceptancePolicy } from '@shared/acceptance-policy.ts';
 import type { RoutineSlug } from '@shared/routines.ts';
 import type { KernelOutcome, MatrixReport, PhaseTimes } from '@shared/trial-report.ts';
-import type { KernelInstance } from '../isolate/kernel-runner.ts';
+import type { KernelInstance } from '../isolate/kernel-instance.ts';
 import { computeMetrics } from '../metrics/routine-metrics.ts';
 import { judgeMatrix } from '../policy/judge-matrix.ts';
 import type { PreparedCase } from './prepare-case.ts';
@@ -56,7 +56,13 @@ export async function evaluateCase(
 ): Promise<MatrixReport> {
   const candidateOutcome = await runKernel(candidate, prepared, routine, phases);
   const incumbentOutcome = incumbent ? await runKernel(incumbent, prepared, routine, phases) : null;
-  const { passed, failures } = judgeMatrix(routine, prepared.expected, candidateOutcome, policy);
+  const { passed, failures } = judgeMatrix(
+    routine,
+    prepared.expected,
+    candidateOutcome,
+    policy,
+    prepared.referenceGrowth,
+  );
   const { matrix } = prepared;
   return {
     id: matrix.id,
@@ -65,6 +71,7 @@ export async function evaluateCase(
     n: prepared.n,
     condition: prepared.condition,
     conditionKind: prepared.conditionKind,
+    referenceGrowth: prepared.referenceGrowth,
     expected: prepared.expected,
     referenceTrusted: prepared.referenceTrusted,
     note: matrix.properties.note,

@@ -1,10 +1,13 @@
 import type { Expectation, RoutineSlug } from '@shared/routines.ts';
 import type { ReferenceMatrix } from '../matrices/reference-matrix.ts';
 import { createRandom } from '../matrices/random.ts';
+import { powerOfTwoScale } from '../metrics/power-of-two-scale.ts';
 import { matVecAccurate } from '../numerics/accurate-residual.ts';
+import { maxAbs } from '../numerics/norms.ts';
 import { conditionEstimate1 } from '../reference/condition-estimate.ts';
 import { referenceSolve } from '../reference/reference-solve.ts';
 import { upperFactorForBackSubstitution } from './back-substitution-input.ts';
+import { referenceGrowth } from './reference-growth.ts';
 
 /** One matrix made ready for one routine: what the kernel receives and what it is judged against. */
 export interface PreparedCase {
@@ -24,6 +27,8 @@ export interface PreparedCase {
   conditionKind: 'exact' | 'estimate' | null;
   /** κ∞, for forward error over its bound κ∞·u. */
   conditionInf: number | null;
+  /** Growth of the contract's own algorithm on this matrix (reference-growth.ts); null for QR. */
+  referenceGrowth: number | null;
 }
 
 function transpose(a: Float64Array, n: number): Float64Array {
@@ -56,6 +61,7 @@ export function prepareCase(
       condition: m === n ? conditionOf(matrix, matrix.data) : null,
       conditionKind: m === n ? kindOf(matrix) : null,
       conditionInf: null,
+      referenceGrowth: null,
     };
   }
   const a =
@@ -65,12 +71,18 @@ export function prepareCase(
   const random = createRandom(seed);
   const xTrue = new Float64Array(n);
   for (let i = 0; i < n; i++) xTrue[i] = 2 * random.uniform() - 1;
-  const b = matVecAccurate(a, n, n, xTrue);
+  // Scale by a power of two (exact) so that the accurate products neither overflow nor
+  // underflow on matrices near the ends of the range; A x = b has the same solution scaled.
+  const sigma = powerOfTwoScale(maxAbs(a));
+  const aScaled = sigma === 1 ? a : a.map((v) => v * sigma);
+  const bScaled = matVecAccurate(aScaled, n, n, xTrue);
+  const b = sigma === 1 ? bScaled : bScaled.map((v) => v / sigma);
   const useExact = routine !== 'back-substitution' || matrix.properties.upperTriangular;
   const condition = useExact ? conditionOf(matrix, a) : conditionEstimate1(a, n);
   const conditionKind = useExact ? kindOf(matrix) : 'estimate';
   const symmetric = matrix.properties.symmetric && routine !== 'back-substitution';
   const conditionInf = symmetric ? condition : conditionEstimate1(transpose(a, n), n);
+  const growth = referenceGrowth(routine, a, n);
   if (expected === 'reject') {
     return {
       matrix,
@@ -83,9 +95,10 @@ export function prepareCase(
       condition,
       conditionKind,
       conditionInf,
+      referenceGrowth: growth,
     };
   }
-  const reference = referenceSolve(a, n, b);
+  const reference = referenceSolve(aScaled, n, bScaled);
   return {
     matrix,
     expected,
@@ -98,6 +111,7 @@ export function prepareCase(
     condition,
     conditionKind,
     conditionInf,
+    referenceGrowth: growth,
   };
 }
 

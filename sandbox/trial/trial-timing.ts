@@ -1,6 +1,6 @@
 import type { RoutineSlug } from '@shared/routines.ts';
 import type { TimingReport } from '@shared/trial-report.ts';
-import type { KernelInstance } from '../isolate/kernel-runner.ts';
+import type { KernelInstance } from '../isolate/kernel-instance.ts';
 import { timingMatrix } from '../matrices/timing-input.ts';
 import { runInterleavedTiming, type TimedKernel } from '../timing/interleaved.ts';
 import { toTimingReport } from '../timing/timing-report.ts';

@@ -13,6 +13,7 @@ export function factor(a: Float64Array, n: number): { lu: Float64Array; perm: In
   for (let i = 0; i < n; i++) perm[i] = i;
   for (let k = 0; k < n; k++) {
     let p = k;
+    // eslint-disable-next-line for-direction -- the planted flaw this example exists to show
     for (let i = k + 1; i < n; i--) {
       if (Math.abs(a[i * n + k]!) > Math.abs(a[p * n + k]!)) p = i;
     }

@@ -1,5 +1,5 @@
 import { integer, jsonb, pgTable, text, timestamp, uniqueIndex } from 'drizzle-orm/pg-core';
-import type { Diagnostic } from '@shared/trial-report.ts';
+import type { KernelDiagnostic } from '@shared/contracts/kernel-diagnostic.ts';
 import { candidates } from './candidates.ts';
 import { users } from './users.ts';
 
@@ -15,7 +15,7 @@ export const revisions = pgTable(
     source: text('source').notNull(),
     /** SHA-256 of the source, hex. */
     sourceHash: text('source_hash').notNull(),
-    diagnostics: jsonb('diagnostics').$type<Diagnostic[]>().notNull(),
+    diagnostics: jsonb('diagnostics').$type<KernelDiagnostic[]>().notNull(),
     createdBy: integer('created_by')
       .notNull()
       .references(() => users.id),

@@ -27,6 +27,7 @@ function matrix(
     conditionKind: 'estimate',
     expected,
     referenceTrusted: true,
+    referenceGrowth: 1,
     note: '',
     candidate,
     incumbent,
@@ -128,6 +129,29 @@ describe('judgeMatrix', () => {
     expect(
       judgeMatrix('back-substitution', 'factor', ok({}), defaultAcceptancePolicy).failures,
     ).toEqual(['solve residual ratio could not be computed']);
+  });
+
+  it('scales the factor-ratio threshold by the reference growth (Higham, ASNA Thm 9.5)', () => {
+    const outcome = ok({ factorRatio: 5900 });
+    expect(
+      judgeMatrix('lu-partial-pivoting', 'factor', outcome, defaultAcceptancePolicy, 1).passed,
+    ).toBe(false);
+    const scaled = judgeMatrix(
+      'lu-partial-pivoting',
+      'factor',
+      outcome,
+      defaultAcceptancePolicy,
+      7e6,
+    );
+    expect(scaled.passed).toBe(true);
+    const beyond = judgeMatrix(
+      'lu-partial-pivoting',
+      'factor',
+      ok({ factorRatio: 1e9 }),
+      defaultAcceptancePolicy,
+      7e6,
+    );
+    expect(beyond.failures).toEqual(['factor ratio 1.0e+9 exceeds 30 × reference growth 7.0e+6']);
   });
 
   it('treats a NaN or infinite ratio as a failure', () => {
