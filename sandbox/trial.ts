@@ -26,6 +26,8 @@ export interface TrialInput {
   matrices: ReferenceMatrix[];
   timingSizes: number[];
   policy?: AcceptancePolicy;
+  /** Time spent generating the matrices before the trial (reported with the phases). */
+  matricesMs?: number;
   /** Skip the timing rounds (accuracy only). */
   timing?: boolean;
   /** Time budget per timing size in ms (both kernels together). */
@@ -56,6 +58,7 @@ export async function runTrial(input: TrialInput): Promise<TrialReport> {
   const started = performance.now();
   const policy = input.policy ?? defaultAcceptancePolicy;
   const phases = emptyPhases();
+  phases.matricesMs = input.matricesMs ?? 0;
   const progress = input.onProgress ?? (() => {});
   const base = {
     routine: input.routine,
@@ -170,13 +173,17 @@ async function runAccuracy(
     (m) => m.properties.expectations[input.routine] !== undefined,
   );
   const reports: MatrixReport[] = [];
+  const candidateTrack = { kernel: candidate, consecutiveTimeouts: 0 };
+  const incumbentTrack = incumbent ? { kernel: incumbent, consecutiveTimeouts: 0 } : null;
   for (const [index, matrix] of applicable.entries()) {
     progress({ phase: 'accuracy', done: index, total: applicable.length, label: matrix.id });
     const t0 = performance.now();
     const prepared = prepareCase(matrix, input.routine, (input.seed ?? 1) + index);
     phases.referenceMs += performance.now() - t0;
     if (!prepared) continue;
-    reports.push(await evaluateCase(prepared, input.routine, candidate, incumbent, policy, phases));
+    reports.push(
+      await evaluateCase(prepared, input.routine, candidateTrack, incumbentTrack, policy, phases),
+    );
   }
   progress({ phase: 'accuracy', done: applicable.length, total: applicable.length });
   return reports;

@@ -1,12 +1,19 @@
 import express, { type Express } from 'express';
 import type { Logger } from 'pino';
+import { authRouter } from './auth/auth.routes.ts';
 import { authenticateBearer } from './auth/authenticate.ts';
+import { refuseCrossSiteWrites } from './auth/csrf.ts';
+import { createSessionAuth } from './auth/session.ts';
 import { loadEnv, type Env } from './config/env.ts';
 import type { Database } from './db/client.ts';
 import { clientAppRouter } from './http/client-app.ts';
 import { apiNotFound, errorHandler } from './http/errors.ts';
 import { requestLogger } from './http/logger.ts';
 import { healthRouter } from './health/health.routes.ts';
+import { meRouter } from './me/me.routes.ts';
+import { tokensRouter } from './tokens/tokens.routes.ts';
+import { mailboxReaderFromEnv } from './mail/mailbox-reader.ts';
+import { mailboxRouter } from './mail/mailbox.routes.ts';
 
 export interface AppDeps {
   database: Database;
@@ -26,11 +33,19 @@ export function createApp(deps: AppDeps): Express {
   app.set('trust proxy', 'loopback');
   app.use(requestLogger(logger));
   app.use(express.json({ limit: '1mb' }));
+  // Sign-in: the session cookie first, then a Bearer token (which wins when both are sent);
+  // both end in req.currentUser. Cookie-authenticated writes must come from our own pages.
+  const sessionAuth = createSessionAuth(database, env);
+  app.use(['/api', '/auth'], sessionAuth.middleware);
   app.use(authenticateBearer(database.db));
-  void env;
+  app.use(refuseCrossSiteWrites(env));
 
   // Every API router, in one visible table.
+  app.use('/auth', authRouter({ db: database.db, env, sessionAuth }));
   app.use('/api/health', healthRouter(database.pool));
+  app.use('/api/me', meRouter(database.db));
+  app.use('/api/tokens', tokensRouter(database.db));
+  app.use('/api/dev/mailbox', mailboxRouter(env, mailboxReaderFromEnv(env)));
   app.use('/api', apiNotFound);
 
   if (clientDir) app.use(clientAppRouter(clientDir));

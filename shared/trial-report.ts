@@ -8,18 +8,24 @@ import {
   timingVerdictSchema,
 } from './routines.ts';
 
+/**
+ * A measured value: any IEEE double, Infinity and NaN included (a metric of a kernel's garbage
+ * is Infinity; a singular matrix has κ = Infinity). zod's number() refuses non-finite values.
+ */
+const measured = z.custom<number>((v) => typeof v === 'number', { message: 'expected a number' });
+
 /** Metric values; names as numerics.md defines them. Absent = does not apply or not trustworthy. */
 export const metricsSchema = z
   .object({
-    factorRatio: z.number(),
-    componentwiseBoundRatio: z.number(),
-    growthFactor: z.number(),
-    orthogonalityRatio: z.number(),
-    solveResidualRatio: z.number(),
-    normwiseBackwardError: z.number(),
-    componentwiseBackwardError: z.number(),
-    forwardError: z.number(),
-    forwardErrorOverBound: z.number(),
+    factorRatio: measured,
+    componentwiseBoundRatio: measured,
+    growthFactor: measured,
+    orthogonalityRatio: measured,
+    solveResidualRatio: measured,
+    normwiseBackwardError: measured,
+    componentwiseBackwardError: measured,
+    forwardError: measured,
+    forwardErrorOverBound: measured,
   })
   .partial();
 
@@ -37,14 +43,14 @@ export const matrixReportSchema = z.object({
   m: z.number().int(),
   n: z.number().int(),
   /** κ₁(A): exact where the family has it, else the 1-norm estimate; null when not defined (rectangular). */
-  condition: z.number().nullable(),
+  condition: measured.nullable(),
   conditionKind: z.enum(['exact', 'estimate']).nullable(),
   expected: expectationSchema,
   /**
    * Growth factor of the algorithm the contract prescribes, run by the harness on this matrix;
    * the factor-ratio threshold is scaled by max(1, referenceGrowth).
    */
-  referenceGrowth: z.number().nullable(),
+  referenceGrowth: measured.nullable(),
   /** False when the reference solution could not be trusted (κ·u ≳ 1): forward errors are then omitted. */
   referenceTrusted: z.boolean(),
   note: z.string(),

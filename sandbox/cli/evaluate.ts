@@ -65,6 +65,8 @@ async function main(argv: string[]): Promise<number> {
     matrices: loaded.matrices,
     timingSizes: loaded.set.timingSizes,
     timing: options.timing,
+    matricesMs: loaded.ms,
+    ...(options.callTimeoutMs !== undefined ? { callTimeoutMs: options.callTimeoutMs } : {}),
     onProgress: progressPrinter(),
   });
   process.stdout.write(

@@ -15,7 +15,17 @@ function readText(file: string): string {
 }
 
 /** Resolves `quick`, `standard` or a JSON file into a set and its matrices; file paths are relative to the JSON file. */
-export function loadSet(nameOrPath: string): { set: MatrixSet; matrices: ReferenceMatrix[] } {
+export function loadSet(nameOrPath: string): {
+  set: MatrixSet;
+  matrices: ReferenceMatrix[];
+  ms: number;
+} {
+  const started = performance.now();
+  const loaded = loadSetUntimed(nameOrPath);
+  return { ...loaded, ms: performance.now() - started };
+}
+
+function loadSetUntimed(nameOrPath: string): { set: MatrixSet; matrices: ReferenceMatrix[] } {
   if (nameOrPath === 'quick' || nameOrPath === 'standard') {
     const set = namedSet(nameOrPath);
     return { set, matrices: materializeSet(set, () => '') };

@@ -8,6 +8,7 @@ export interface EvaluateOptions {
   set: string;
   json: boolean;
   timing: boolean;
+  callTimeoutMs: number | undefined;
 }
 
 export const usage = `Usage: npm run evaluate -- <kernel.ts> --routine <slug> [--against <incumbent.ts>]
@@ -18,6 +19,7 @@ export const usage = `Usage: npm run evaluate -- <kernel.ts> --routine <slug> [-
   --set       the matrix set: quick (default), standard, or a JSON file listing matrices
   --json      print one JSON document on stdout instead of tables
   --no-timing skip the timing rounds
+  --call-timeout <ms>  time limit of one kernel call (default 10000)
 
 Exit code: 0 when the acceptance policy passes, 1 when it fails, 2 on a usage or input error.`;
 
@@ -36,6 +38,7 @@ export function parseEvaluateArgs(argv: string[]): EvaluateOptions {
         set: { type: 'string', default: 'quick' },
         json: { type: 'boolean', default: false },
         'no-timing': { type: 'boolean', default: false },
+        'call-timeout': { type: 'string' },
         help: { type: 'boolean', short: 'h', default: false },
       },
     });
@@ -52,7 +55,18 @@ export function parseEvaluateArgs(argv: string[]): EvaluateOptions {
       `Unknown routine "${routine}"; expected one of ${routineSlugs.join(', ')}.`,
     );
   }
+  const timeoutText = values['call-timeout'];
+  const callTimeoutMs = timeoutText === undefined ? undefined : Number(timeoutText);
+  if (
+    callTimeoutMs !== undefined &&
+    !(Number.isInteger(callTimeoutMs) && callTimeoutMs >= 10 && callTimeoutMs <= 600_000)
+  ) {
+    throw new UsageError(
+      '--call-timeout must be a whole number of milliseconds from 10 to 600000.',
+    );
+  }
   return {
+    callTimeoutMs,
     kernelPath: positionals[0]!,
     routine: routine as RoutineSlug,
     againstPath: values.against ?? null,

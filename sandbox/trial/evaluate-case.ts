@@ -7,13 +7,34 @@ import { computeMetrics } from '../metrics/routine-metrics.ts';
 import { judgeMatrix } from '../policy/judge-matrix.ts';
 import type { PreparedCase } from './prepare-case.ts';
 
+/**
+ * After this many timeouts in a row a kernel is not called again in the trial: its remaining
+ * matrices are recorded as timeouts, so a hung kernel cannot hold a worker for many minutes.
+ */
+export const MAX_CONSECUTIVE_TIMEOUTS = 3;
+
+/** Per-kernel state across the matrices of one trial. */
+export interface KernelTrack {
+  kernel: KernelInstance;
+  consecutiveTimeouts: number;
+}
+
 /** Runs one kernel on a fresh copy of the case's matrix and measures what it returned. */
 async function runKernel(
-  kernel: KernelInstance,
+  track: KernelTrack,
   prepared: PreparedCase,
   routine: RoutineSlug,
   phases: PhaseTimes,
 ): Promise<KernelOutcome> {
+  if (track.consecutiveTimeouts >= MAX_CONSECUTIVE_TIMEOUTS) {
+    return {
+      status: 'timeout',
+      message: `not run: the kernel timed out on ${MAX_CONSECUTIVE_TIMEOUTS} matrices in a row`,
+      metrics: {},
+      ms: 0,
+    };
+  }
+  const { kernel } = track;
   const t0 = performance.now();
   const call = await kernel.call({
     a: Float64Array.from(prepared.a),
@@ -22,6 +43,7 @@ async function runKernel(
     ...(prepared.b ? { b: Float64Array.from(prepared.b) } : {}),
   });
   phases.kernelMs += performance.now() - t0;
+  track.consecutiveTimeouts = call.status === 'timeout' ? track.consecutiveTimeouts + 1 : 0;
   const outcome: KernelOutcome = {
     status: call.status,
     ...(call.message ? { message: call.message } : {}),
@@ -49,8 +71,8 @@ async function runKernel(
 export async function evaluateCase(
   prepared: PreparedCase,
   routine: RoutineSlug,
-  candidate: KernelInstance,
-  incumbent: KernelInstance | null,
+  candidate: KernelTrack,
+  incumbent: KernelTrack | null,
   policy: AcceptancePolicy,
   phases: PhaseTimes,
 ): Promise<MatrixReport> {

@@ -22,6 +22,8 @@ const envSchema = z.object({
   SMTP_PORT: z.coerce.number().int().min(0).max(65535).default(2525),
   /** Port of the local fake SMTP server started by npm start (0 = do not start it). */
   FAKE_SMTP_PORT: z.coerce.number().int().min(0).max(65535).default(2525),
+  /** Port of the fake SMTP server's JSON reader (on SMTP_HOST); the development mailbox reads it. */
+  FAKE_SMTP_HTTP_PORT: z.coerce.number().int().min(1).max(65535).default(2526),
   MAIL_FROM: z.string().default('Stablehand <stablehand@localhost>'),
   /** Cron expression for drift checks of every incumbent (pg-boss schedule). */
   DRIFT_CHECK_CRON: z.string().default('0 3 * * *'),

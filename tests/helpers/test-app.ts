@@ -1,7 +1,8 @@
+import { createServer, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
-import type { Server } from 'node:http';
 import { pino } from 'pino';
 import { createApp } from '@server/app.ts';
+import { loadEnv } from '@server/config/env.ts';
 import { createDatabase, type Database } from '@server/db/client.ts';
 
 export interface RunningApp {
@@ -10,16 +11,30 @@ export interface RunningApp {
   close: () => Promise<void>;
 }
 
-/** Starts the app in this process on a free loopback port; close() stops it and its pool. */
-export async function startTestApp(databaseUrl: string, clientDir?: string): Promise<RunningApp> {
+/**
+ * Starts the app in this process on a free loopback port; close() stops it and its pool. The
+ * server listens before the app is built so that PUBLIC_URL (sign-in callback, CSRF origin) is
+ * the real address; `env` adds or overrides settings (for example the fake provider's URLs).
+ */
+export async function startTestApp(
+  databaseUrl: string,
+  clientDir?: string,
+  env: Record<string, string | undefined> = {},
+): Promise<RunningApp> {
   const database = createDatabase(databaseUrl, 4);
-  const app = createApp({ database, logger: pino({ level: 'silent' }), clientDir });
-  const server: Server = await new Promise((resolve) => {
-    const s = app.listen(0, '127.0.0.1', () => resolve(s));
-  });
+  const server: Server = createServer();
+  await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
   const { port } = server.address() as AddressInfo;
+  const url = `http://127.0.0.1:${port}`;
+  const app = createApp({
+    database,
+    logger: pino({ level: 'silent' }),
+    clientDir,
+    env: loadEnv({ PUBLIC_URL: url, ...env }),
+  });
+  server.on('request', app);
   return {
-    url: `http://127.0.0.1:${port}`,
+    url,
     database,
     close: async () => {
       server.closeAllConnections();
