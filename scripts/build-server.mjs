@@ -5,6 +5,7 @@ await build({
   entryPoints: {
     main: 'server/main.ts',
     migrate: 'server/db/migrate.ts',
+    worker: 'server/worker.ts',
   },
   outdir: 'dist/server',
   bundle: true,

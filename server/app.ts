@@ -14,6 +14,21 @@ import { meRouter } from './me/me.routes.ts';
 import { tokensRouter } from './tokens/tokens.routes.ts';
 import { mailboxReaderFromEnv } from './mail/mailbox-reader.ts';
 import { mailboxRouter } from './mail/mailbox.routes.ts';
+import type { TrialQueue } from './jobs/trial-queue.ts';
+import { candidatesRouter } from './candidates/candidates.routes.ts';
+import { revisionsRouter } from './revisions/revisions.routes.ts';
+import { trialsRouter } from './trials/trials.routes.ts';
+import { commentsRouter } from './comments/comments.routes.ts';
+import { reviewsRouter } from './reviews/reviews.routes.ts';
+import { promotionsRouter } from './promotions/promotions.routes.ts';
+import { logbookRouter } from './logbook/logbook.routes.ts';
+import { teamsRouter } from './teams/teams.routes.ts';
+import { membersRouter } from './members/members.routes.ts';
+import { invitationsRouter } from './invitations/invitations.routes.ts';
+import { routinesRouter } from './routines/routines.routes.ts';
+import { matrixSetsRouter } from './matrix-sets/matrix-sets.routes.ts';
+import { uploadsRouter } from './uploads/uploads.routes.ts';
+import { auditRouter } from './audit/audit.routes.ts';
 
 export interface AppDeps {
   database: Database;
@@ -22,6 +37,8 @@ export interface AppDeps {
   env?: Env;
   /** Folder of the built client; when set, the app serves it with history fallback. */
   clientDir?: string | undefined;
+  /** Where submitted revisions' trials are queued; without it they stay queued (tests). */
+  queue?: TrialQueue | undefined;
 }
 
 /** Builds the Express app without listening, so tests can mount it. */
@@ -46,6 +63,22 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/me', meRouter(database.db));
   app.use('/api/tokens', tokensRouter(database.db));
   app.use('/api/dev/mailbox', mailboxRouter(env, mailboxReaderFromEnv(env)));
+  // The review process: each router names its full paths under /api.
+  app.use('/api', candidatesRouter(database.db, deps.queue));
+  app.use('/api', revisionsRouter(database.db, deps.queue));
+  app.use('/api', trialsRouter(database.db));
+  app.use('/api', commentsRouter(database.db));
+  app.use('/api', reviewsRouter(database.db, env));
+  app.use('/api', promotionsRouter(database.db, env));
+  app.use('/api', logbookRouter(database.db));
+  // The team side: teams, members, invitations, routines, matrix sets, uploads, audit log.
+  app.use('/api', teamsRouter(database.db));
+  app.use('/api', membersRouter(database.db));
+  app.use('/api', invitationsRouter(database.db, env));
+  app.use('/api', routinesRouter(database.db));
+  app.use('/api', matrixSetsRouter(database.db));
+  app.use('/api', uploadsRouter(database.db));
+  app.use('/api', auditRouter(database.db));
   app.use('/api', apiNotFound);
 
   if (clientDir) app.use(clientAppRouter(clientDir));

@@ -34,7 +34,9 @@ function loadSetUntimed(nameOrPath: string): { set: MatrixSet; matrices: Referen
   try {
     value = JSON.parse(readText(nameOrPath));
   } catch (err) {
-    throw new Error(`Cannot read the matrix set ${nameOrPath}: ${(err as Error).message}`);
+    throw new Error(`Cannot read the matrix set ${nameOrPath}: ${(err as Error).message}`, {
+      cause: err,
+    });
   }
   const set = parseMatrixSetJson(value, path.basename(nameOrPath));
   const dir = path.dirname(path.resolve(nameOrPath));

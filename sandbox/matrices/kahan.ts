@@ -1,5 +1,4 @@
-import { exactFacts } from '@sandbox/matrices/exact-analysis.ts';
-import { expectations } from '@sandbox/matrices/expectation-rules.ts';
+import { factorableGeneralProperties } from '@sandbox/matrices/factorable-general-properties.ts';
 import type { FamilyDefinition } from '@sandbox/matrices/family-definition.ts';
 
 /**
@@ -36,21 +35,13 @@ export const kahanFamily: FamilyDefinition = {
       for (let j = i + 1; j < n; j++) data[i * n + j] = -c * d;
       d *= s;
     }
-    const facts = exactFacts(data, n);
     return {
       data,
-      properties: {
-        positiveDefinite: false,
-        singular: false,
-        ...(facts?.condition1 !== undefined ? { exactCondition1: facts.condition1 } : {}),
-        expectations: expectations({
-          'lu-partial-pivoting': 'factor',
-          'lu-no-pivoting': 'factor',
-          'householder-qr': 'factor',
-          'back-substitution': 'factor',
-        }),
-        note: `Kahan matrix (θ = ${params.theta}): upper triangular, the diagonal hides near-singularity; zero sub-columns for QR.`,
-      },
+      properties: factorableGeneralProperties(
+        data,
+        n,
+        `Kahan matrix (θ = ${params.theta}): upper triangular, the diagonal hides near-singularity; zero sub-columns for QR.`,
+      ),
     };
   },
 };

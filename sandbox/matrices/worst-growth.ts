@@ -1,5 +1,4 @@
-import { exactFacts } from '@sandbox/matrices/exact-analysis.ts';
-import { expectations } from '@sandbox/matrices/expectation-rules.ts';
+import { factorableGeneralProperties } from '@sandbox/matrices/factorable-general-properties.ts';
 import type { FamilyDefinition } from '@sandbox/matrices/family-definition.ts';
 
 /**
@@ -32,24 +31,15 @@ export const worstGrowthFamily: FamilyDefinition = {
       data[i * n + i] = 1;
       data[i * n + n - 1] = 1;
     }
-    const facts = exactFacts(data, n);
     return {
       data,
-      properties: {
-        positiveDefinite: false,
-        singular: false,
-        ...(facts?.condition1 !== undefined ? { exactCondition1: facts.condition1 } : {}),
-        expectations: expectations({
-          'lu-partial-pivoting': 'factor',
-          'lu-no-pivoting': 'factor',
-          'householder-qr': 'factor',
-          'back-substitution': 'factor',
-        }),
-        note:
-          alpha === 1
-            ? 'Worst-case GEPP growth 2^(n−1) with first-maximum ties (2 with last-maximum); κ₁ = n.'
-            : `Worst-growth variant α = ${alpha}: GEPP growth (1+α)^(n−1) under any tie rule.`,
-      },
+      properties: factorableGeneralProperties(
+        data,
+        n,
+        alpha === 1
+          ? 'Worst-case GEPP growth 2^(n−1) with first-maximum ties (2 with last-maximum); κ₁ = n.'
+          : `Worst-growth variant α = ${alpha}: GEPP growth (1+α)^(n−1) under any tie rule.`,
+      ),
     };
   },
 };

@@ -1,8 +1,9 @@
 import type { MatrixMarketHeader } from '@sandbox/matrix-market/matrix-market-banner.ts';
+import { readEntryLines, storeEntry } from '@sandbox/matrix-market/matrix-market-entries.ts';
 import { MatrixMarketError } from '@sandbox/matrix-market/matrix-market-error.ts';
 import type { MatrixMarketLineReader } from '@sandbox/matrix-market/matrix-market-lines.ts';
 import type { MatrixMarketSize } from '@sandbox/matrix-market/matrix-market-size-line.ts';
-import { parseValue, splitFields } from '@sandbox/matrix-market/matrix-market-tokens.ts';
+import { parseValue } from '@sandbox/matrix-market/matrix-market-tokens.ts';
 
 /**
  * Reads the data lines of an array file into a dense row-major m×n matrix: entry (i, j), 0-based,
@@ -27,45 +28,20 @@ export function readArrayBody(
   // j + firstRow.
   let i = firstRow;
   let j = 0;
-  let read = 0;
-  for (let next = reader.next(); next !== undefined; next = reader.next()) {
-    const { text, line } = next;
-    const tokens = splitFields(text);
-    if (tokens.length === 0) continue;
-    if (read === entries)
-      throw new MatrixMarketError(
-        line,
-        'too-many-entries',
-        `more data after the ${entries} values declared by the size line (line ${sizeLine})`,
-      );
-    if (tokens[0]!.startsWith('%'))
-      throw new MatrixMarketError(
-        line,
-        'bad-entry-line',
-        'comment lines must come before the size line',
-      );
+  const declared = `values declared by the size line (line ${sizeLine})`;
+  readEntryLines(reader, entries, declared, (tokens, line) => {
     if (tokens.length !== 1)
       throw new MatrixMarketError(
         line,
         'bad-entry-line',
         `expected one value per line, found ${tokens.length}`,
       );
-    const value = parseValue(tokens[0]!, field, line);
-    data[i * n + j] = value;
-    if (i !== j && header.symmetry === 'symmetric') data[j * n + i] = value;
-    if (header.symmetry === 'skew-symmetric') data[j * n + i] = -value;
-    read++;
+    storeEntry(data, n, i, j, parseValue(tokens[0]!, field, line), header.symmetry);
     i++;
     if (i === m) {
       j++;
       i = header.symmetry === 'general' ? 0 : j + firstRow;
     }
-  }
-  if (read < entries)
-    throw new MatrixMarketError(
-      reader.lastLine,
-      'too-few-entries',
-      `the file ends after ${read} of the ${entries} values declared by the size line (line ${sizeLine})`,
-    );
+  });
   return data;
 }

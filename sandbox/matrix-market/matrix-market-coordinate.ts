@@ -1,12 +1,9 @@
 import type { MatrixMarketHeader } from '@sandbox/matrix-market/matrix-market-banner.ts';
+import { readEntryLines, storeEntry } from '@sandbox/matrix-market/matrix-market-entries.ts';
 import { MatrixMarketError } from '@sandbox/matrix-market/matrix-market-error.ts';
 import type { MatrixMarketLineReader } from '@sandbox/matrix-market/matrix-market-lines.ts';
 import type { MatrixMarketSize } from '@sandbox/matrix-market/matrix-market-size-line.ts';
-import {
-  parseIndex,
-  parseValue,
-  splitFields,
-} from '@sandbox/matrix-market/matrix-market-tokens.ts';
+import { parseIndex, parseValue } from '@sandbox/matrix-market/matrix-market-tokens.ts';
 
 /**
  * Reads the data lines of a coordinate file into a dense row-major m×n matrix: entry (i, j),
@@ -30,23 +27,7 @@ export function readCoordinateBody(
   const seenAt = new Uint32Array(m * n);
   const pattern = header.field === 'pattern';
   const fieldCount = pattern ? 2 : 3;
-  let read = 0;
-  for (let next = reader.next(); next !== undefined; next = reader.next()) {
-    const { text, line } = next;
-    const tokens = splitFields(text);
-    if (tokens.length === 0) continue;
-    if (read === entries)
-      throw new MatrixMarketError(
-        line,
-        'too-many-entries',
-        `more data after the ${entries} entries declared on line ${sizeLine}`,
-      );
-    if (tokens[0]!.startsWith('%'))
-      throw new MatrixMarketError(
-        line,
-        'bad-entry-line',
-        'comment lines must come before the size line',
-      );
+  readEntryLines(reader, entries, `entries declared on line ${sizeLine}`, (tokens, line) => {
     if (tokens.length !== fieldCount) {
       const shape = pattern ? "'row column'" : "'row column value'";
       throw new MatrixMarketError(
@@ -68,17 +49,8 @@ export function readCoordinateBody(
         `entry (${i}, ${j}) repeats line ${earlier}`,
       );
     seenAt[p] = line;
-    data[p] = value;
-    if (i !== j && header.symmetry === 'symmetric') data[(j - 1) * n + (i - 1)] = value;
-    if (header.symmetry === 'skew-symmetric') data[(j - 1) * n + (i - 1)] = -value;
-    read++;
-  }
-  if (read < entries)
-    throw new MatrixMarketError(
-      reader.lastLine,
-      'too-few-entries',
-      `the file ends after ${read} of the ${entries} entries declared on line ${sizeLine}`,
-    );
+    storeEntry(data, n, i - 1, j - 1, value, header.symmetry);
+  });
   return data;
 }
 

@@ -9,51 +9,16 @@
  * Assumes no overflow or underflow in the products (scale first; see power-of-two-scale.ts).
  * Non-finite inputs give a non-finite or NaN result, never an exception.
  */
-import { twoProduct, twoSum } from '@sandbox/numerics/error-free.ts';
-
-const SPLITTER = 134217729; // 2^27 + 1, Veltkamp's split (Dekker 1971), as in error-free.ts.
+import { dot2Residual, twoProduct, twoSum } from '@sandbox/numerics/error-free.ts';
 
 /**
  * (c + cLow) − Σ_{k<len} x[xOff + k·xStride]·y[yOff + k·yStride], with error at most
  * u·|result| + γ_{len+1}²·(|c| + Σ|x_k y_k|) (the error bound of Dot2 in Ogita, Rump & Oishi
  * 2005, §5, from memory). cLow carries the low part of an exact constant (e.g. from TwoSum).
- * Cost 25·len flops. Method: Dot2 with TwoProduct and TwoSum inlined in the loop (the hot loop of
- * every factor residual; the tuple-returning helpers of error-free.ts allocate per call).
+ * Cost 25·len flops. Method: Dot2 with the constant in the compensated sum, dot2Residual of
+ * error-free.ts (the hot loop of every factor residual, TwoProduct and TwoSum inlined there).
  */
-export function residualDot2(
-  c: number,
-  cLow: number,
-  len: number,
-  x: ArrayLike<number>,
-  xOff: number,
-  xStride: number,
-  y: ArrayLike<number>,
-  yOff: number,
-  yStride: number,
-): number {
-  let p = c;
-  let s = cLow;
-  for (let k = 0; k < len; k++) {
-    const a = x[xOff + k * xStride]!;
-    const b = y[yOff + k * yStride]!;
-    const h = a * b;
-    // TwoProduct(a, b) = h + e exactly (Dekker 1971, mul12).
-    let t = SPLITTER * a;
-    const ah = t - (t - a);
-    const al = a - ah;
-    t = SPLITTER * b;
-    const bh = t - (t - b);
-    const bl = b - bh;
-    const e = al * bl - (h - ah * bh - al * bh - ah * bl);
-    // TwoSum(p, −h) = sum + q exactly (Knuth, TAOCP vol. 2, §4.2.2).
-    const sum = p - h;
-    const z = sum - p;
-    const q = p - (sum - z) - (h + z);
-    p = sum;
-    s += q - e;
-  }
-  return p + s;
-}
+export const residualDot2: typeof dot2Residual = dot2Residual;
 
 /**
  * c − Σ_{k<len} x[xOff + k·xStride]·d[dOff + k]·y[yOff + k·yStride] in Dot2 precision: each

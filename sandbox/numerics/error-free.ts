@@ -32,8 +32,54 @@ export function twoProduct(a: number, b: number): [p: number, e: number] {
 }
 
 /**
+ * (c + cLow) − Σ_{k<n} x[xOff + k·xStride]·y[yOff + k·yStride] as if computed in twice the
+ * working precision, then rounded: the constant and every product enter one compensated sum
+ * (Ogita, Rump & Oishi 2005, Algorithm 5.3, Dot2), with error at most u·|result| +
+ * γ_{n+1}²·(|c| + Σ|x_k y_k|) (their §5, from memory). cLow carries the low part of an exact
+ * constant (e.g. from TwoSum). Cost 25·n flops. Method: TwoProduct and TwoSum inlined in the loop,
+ * the hot loop of every accurate residual (the tuple-returning helpers above allocate per call).
+ */
+export function dot2Residual(
+  c: number,
+  cLow: number,
+  n: number,
+  x: ArrayLike<number>,
+  xOff: number,
+  xStride: number,
+  y: ArrayLike<number>,
+  yOff: number,
+  yStride: number,
+): number {
+  let p = c;
+  let s = cLow;
+  for (let k = 0; k < n; k++) {
+    const a = x[xOff + k * xStride]!;
+    const b = y[yOff + k * yStride]!;
+    const h = a * b;
+    // TwoProduct(a, b) = h + e exactly (Dekker 1971, mul12).
+    let t = SPLITTER * a;
+    const ah = t - (t - a);
+    const al = a - ah;
+    t = SPLITTER * b;
+    const bh = t - (t - b);
+    const bl = b - bh;
+    const e = al * bl - (h - ah * bh - al * bh - ah * bl);
+    // TwoSum(p, −h) = sum + q exactly (Knuth, TAOCP vol. 2, §4.2.2).
+    const sum = p - h;
+    const z = sum - p;
+    const q = p - (sum - z) - (h + z);
+    p = sum;
+    s += q - e;
+  }
+  return p + s;
+}
+
+/**
  * Dot product as if computed in twice the working precision, then rounded (Ogita, Rump &
  * Oishi 2005, Algorithm 5.3, Dot2). Reads x[xOff + k·xStride] and y[yOff + k·yStride].
+ * Method: −dot2Residual(0, 0, …). Round-to-nearest is symmetric and negation exact, so every
+ * nonzero intermediate is the exact negation of Dot2's own and the result is Dot2's bit for bit;
+ * adding +0 turns a zero result into +0, the sign Dot2 gives it.
  */
 export function dot2(
   n: number,
@@ -44,26 +90,5 @@ export function dot2(
   yOff: number,
   yStride: number,
 ): number {
-  let p = 0;
-  let s = 0;
-  for (let k = 0; k < n; k++) {
-    const a = x[xOff + k * xStride]!;
-    const b = y[yOff + k * yStride]!;
-    const h = a * b;
-    // TwoProduct inline.
-    let c = SPLITTER * a;
-    const ah = c - (c - a);
-    const al = a - ah;
-    c = SPLITTER * b;
-    const bh = c - (c - b);
-    const bl = b - bh;
-    const r = al * bl - (h - ah * bh - al * bh - ah * bl);
-    // TwoSum inline.
-    const t = p + h;
-    const z = t - p;
-    const q = p - (t - z) + (h - z);
-    p = t;
-    s += q + r;
-  }
-  return p + s;
+  return -dot2Residual(0, 0, n, x, xOff, xStride, y, yOff, yStride) + 0;
 }

@@ -12,19 +12,34 @@ export interface FakeGithubIdentity {
  * Every name, login, id and address here is invented.
  */
 export const demoIdentities: readonly FakeGithubIdentity[] = [
-  { id: 71_001, login: 'ines.okafor', name: 'Inês Okafor', email: 'ines.okafor@hallbrook-vey.example' },
+  {
+    id: 71_001,
+    login: 'ines.okafor',
+    name: 'Inês Okafor',
+    email: 'ines.okafor@hallbrook-vey.example',
+  },
   {
     id: 71_002,
     login: 'tomas.lindqvist',
     name: 'Tomas Lindqvist',
     email: 'tomas.lindqvist@hallbrook-vey.example',
   },
-  { id: 71_003, login: 'priya.venkat', name: 'Priya Venkat', email: 'priya.venkat@hallbrook-vey.example' },
+  {
+    id: 71_003,
+    login: 'priya.venkat',
+    name: 'Priya Venkat',
+    email: 'priya.venkat@hallbrook-vey.example',
+  },
   {
     id: 71_004,
     login: 'mateo.achterberg',
     name: 'Mateo Achterberg',
     email: 'mateo.achterberg@hallbrook-vey.example',
   },
-  { id: 71_005, login: 'yara.domsch', name: 'Yara Domsch', email: 'yara.domsch@hallbrook-vey.example' },
+  {
+    id: 71_005,
+    login: 'yara.domsch',
+    name: 'Yara Domsch',
+    email: 'yara.domsch@hallbrook-vey.example',
+  },
 ];

@@ -98,7 +98,10 @@ export function createFakeGithubApp(options: FakeGithubOptions): Express {
   });
 
   app.post('/login/oauth/access_token', (req, res) => {
-    if (field(req.body, 'client_id') !== client.id || field(req.body, 'client_secret') !== client.secret) {
+    if (
+      field(req.body, 'client_id') !== client.id ||
+      field(req.body, 'client_secret') !== client.secret
+    ) {
       res.status(401).json({
         error: 'incorrect_client_credentials',
         error_description: 'The client_id and/or client_secret passed are incorrect.',

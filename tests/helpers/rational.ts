@@ -1,8 +1,9 @@
 /**
  * Exact rational arithmetic on BigInt for tests: every finite double is a dyadic rational
- * m·2^e, so a matrix given as doubles can be solved, inverted and multiplied exactly, and the
- * engine's floating-point results compared with the exact values. Matrices are dense row-major
- * arrays of Rational: entry (i, j) of an m×n matrix at [i*n + j]. Meant for small n (≲ 20).
+ * m·2^e, so a matrix given as doubles can be solved, inverted, multiplied and its residuals
+ * formed exactly, and the engine's floating-point results compared with the exact values (check
+ * values computed independently of the code under test). Matrices are dense row-major arrays of
+ * Rational: entry (i, j) of an m×n matrix at [i*n + j]. Meant for small n (≲ 20).
  */
 
 /** num/den in lowest terms with den > 0. */
@@ -68,6 +69,11 @@ export function compare(a: Rational, b: Rational): number {
   const d = a.num * b.den - b.num * a.den;
   return d < 0n ? -1 : d > 0n ? 1 : 0;
 }
+export const max = (a: Rational, b: Rational): Rational => (compare(a, b) >= 0 ? a : b);
+export const sum = (values: readonly Rational[]): Rational => values.reduce(add, ZERO);
+
+/** u = 2^-53 as a rational (LAPACK DLAMCH('E'), INSTALL/dlamch.f). */
+export const UNIT_ROUNDOFF_EXACT: Rational = { num: 1n, den: 1n << 53n };
 
 function bitLength(x: bigint): number {
   return x === 0n ? 0 : x.toString(2).length;
@@ -112,9 +118,38 @@ export function matMulExact(
 }
 
 /**
- * Solves A X = B exactly for an n×n A and n×p B by Gaussian elimination with the first nonzero
- * pivot (any pivot is exact here). Returns null when A is singular.
+ * Gauss–Jordan elimination in place on the n×w row-major m (w ≥ n), with the first nonzero pivot
+ * (any pivot is exact here) and each pivot row scaled to a unit pivot. Returns the determinant of
+ * the leading n×n block, ZERO when it is singular (m is then left partly reduced).
  */
+function gaussJordan(m: Rational[], n: number, w: number): Rational {
+  let det = ONE;
+  for (let k = 0; k < n; k++) {
+    let r = k;
+    while (r < n && isZero(m[r * w + k]!)) r++;
+    if (r === n) return ZERO;
+    if (r !== k) {
+      for (let j = 0; j < w; j++) [m[k * w + j], m[r * w + j]] = [m[r * w + j]!, m[k * w + j]!];
+      det = neg(det);
+    }
+    const pivot = m[k * w + k]!;
+    det = mul(det, pivot);
+    for (let j = k; j < w; j++) m[k * w + j] = div(m[k * w + j]!, pivot);
+    for (let i = 0; i < n; i++) {
+      if (i === k || isZero(m[i * w + k]!)) continue;
+      const f = m[i * w + k]!;
+      for (let j = k; j < w; j++) m[i * w + j] = sub(m[i * w + j]!, mul(f, m[k * w + j]!));
+    }
+  }
+  return det;
+}
+
+/** det A exactly, for an n×n A (Gauss–Jordan elimination on a copy). */
+export function determinantExact(a: readonly Rational[], n: number): Rational {
+  return gaussJordan(a.slice(), n, n);
+}
+
+/** Solves A X = B exactly for an n×n A and n×p B. Returns null when A is singular. */
 export function solveExactMany(
   a: readonly Rational[],
   n: number,
@@ -125,20 +160,7 @@ export function solveExactMany(
   // Augmented [A | B], row-major with w columns.
   const m: Rational[] = [];
   for (let i = 0; i < n; i++) m.push(...a.slice(i * n, i * n + n), ...b.slice(i * p, i * p + p));
-  for (let k = 0; k < n; k++) {
-    let r = k;
-    while (r < n && isZero(m[r * w + k]!)) r++;
-    if (r === n) return null;
-    if (r !== k)
-      for (let j = 0; j < w; j++) [m[k * w + j], m[r * w + j]] = [m[r * w + j]!, m[k * w + j]!];
-    const pivot = m[k * w + k]!;
-    for (let j = k; j < w; j++) m[k * w + j] = div(m[k * w + j]!, pivot);
-    for (let i = 0; i < n; i++) {
-      if (i === k || isZero(m[i * w + k]!)) continue;
-      const f = m[i * w + k]!;
-      for (let j = k; j < w; j++) m[i * w + j] = sub(m[i * w + j]!, mul(f, m[k * w + j]!));
-    }
-  }
+  if (isZero(gaussJordan(m, n, w))) return null;
   const x: Rational[] = [];
   for (let i = 0; i < n; i++) x.push(...m.slice(i * w + n, i * w + w));
   return x;
@@ -153,22 +175,31 @@ export function solveExact(
   return solveExactMany(a, n, b, 1);
 }
 
+/** The n×n identity. */
+function identity(n: number): Rational[] {
+  return Array.from({ length: n * n }, (_, k) => (k % (n + 1) === 0 ? ONE : ZERO));
+}
+
+/** Whether the n×n matrix a is exactly the identity. */
+export function isIdentity(a: readonly Rational[], n: number): boolean {
+  const id = identity(n);
+  return a.length === id.length && a.every((x, k) => equals(x, id[k]!));
+}
+
 /** A⁻¹ exactly (n×n row-major), or null when A is singular. */
 export function inverseExact(a: readonly Rational[], n: number): Rational[] | null {
-  const identity: Rational[] = [];
-  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) identity.push(i === j ? ONE : ZERO);
-  return solveExactMany(a, n, identity, n);
+  return solveExactMany(a, n, identity(n), n);
 }
 
 /** ‖A‖₁ = max_j Σ_i |a_ij| exactly, for an m×n matrix. */
 export function norm1Exact(a: readonly Rational[], m: number, n: number): Rational {
-  let max = ZERO;
+  let best = ZERO;
   for (let j = 0; j < n; j++) {
     let s = ZERO;
     for (let i = 0; i < m; i++) s = add(s, abs(a[i * n + j]!));
-    if (compare(s, max) > 0) max = s;
+    best = max(best, s);
   }
-  return max;
+  return best;
 }
 
 /** κ₁(A) = ‖A‖₁‖A⁻¹‖₁ exactly, or null when A is singular. */

@@ -4,41 +4,38 @@ import { exampleKernels, type ExampleName } from '@sandbox/kernels/example-catal
 import { generateMatrix } from '@sandbox/matrices/generate.ts';
 import { namedSet } from '@sandbox/matrices/sets.ts';
 import { materializeSet } from '@sandbox/trial/materialize-set.ts';
-import { runTrial } from '@sandbox/trial.ts';
+import { runTrial, type TrialInput } from '@sandbox/trial.ts';
 import { trialReportSchema } from '@shared/trial-report.ts';
 
 const source = (name: ExampleName) =>
   readFileSync(`sandbox/kernels/${exampleKernels[name].file}`, 'utf8');
 const quick = materializeSet(namedSet('quick'), () => '');
 
+/** runTrial of an LU candidate on the quick set without timing, unless `input` says otherwise. */
+const trial = (candidateSource: string, input: Partial<TrialInput> = {}) =>
+  runTrial({
+    routine: 'lu-partial-pivoting',
+    candidateSource,
+    setName: 'quick',
+    matrices: quick,
+    timingSizes: [],
+    ...input,
+  });
+
 describe('runTrial in one process', () => {
   it('survives an endless loop and a memory hog, then evaluates a sound kernel correctly', async () => {
-    const loop = await runTrial({
-      routine: 'lu-partial-pivoting',
-      candidateSource: source('lu-endless-loop'),
-      setName: 'quick',
+    const loop = await trial(source('lu-endless-loop'), {
       matrices: quick.slice(0, 4),
-      timingSizes: [],
       callTimeoutMs: 200,
     });
     expect(loop.status).toBe('trial-failed');
     expect(loop.matrices.every((m) => m.candidate.status === 'timeout')).toBe(true);
 
-    const hog = await runTrial({
-      routine: 'lu-partial-pivoting',
-      candidateSource: source('lu-memory-hog'),
-      setName: 'quick',
-      matrices: quick.slice(0, 2),
-      timingSizes: [],
-    });
+    const hog = await trial(source('lu-memory-hog'), { matrices: quick.slice(0, 2) });
     expect(hog.matrices[0]!.candidate.status).toBe('out-of-memory');
 
-    const sound = await runTrial({
-      routine: 'lu-partial-pivoting',
-      candidateSource: source('lu-partial-pivoting-right-looking'),
+    const sound = await trial(source('lu-partial-pivoting-right-looking'), {
       incumbentSource: source('lu-partial-pivoting-right-looking'),
-      setName: 'quick',
-      matrices: quick,
       timingSizes: [24],
       timingBudgetMs: 200,
     });
@@ -50,12 +47,8 @@ describe('runTrial in one process', () => {
   });
 
   it('stops calling a kernel after three timeouts in a row and says why', async () => {
-    const report = await runTrial({
-      routine: 'lu-partial-pivoting',
-      candidateSource: source('lu-endless-loop'),
-      setName: 'quick',
+    const report = await trial(source('lu-endless-loop'), {
       matrices: quick.slice(0, 6),
-      timingSizes: [],
       callTimeoutMs: 100,
     });
     expect(
@@ -67,14 +60,10 @@ describe('runTrial in one process', () => {
   });
 
   it('reports a type error as a trial that could not run, with the line of the error', async () => {
-    const report = await runTrial({
-      routine: 'cholesky',
-      candidateSource:
-        'export function factor(a: Float64Array, n: number) {\n  const k: string = n;\n  return { l: a };\n}\n',
-      setName: 'quick',
-      matrices: quick,
-      timingSizes: [],
-    });
+    const report = await trial(
+      'export function factor(a: Float64Array, n: number) {\n  const k: string = n;\n  return { l: a };\n}\n',
+      { routine: 'cholesky' },
+    );
     expect(report.status).toBe('trial-failed');
     expect(report.diagnostics.candidate.some((d) => d.line === 2 && d.code === 'TS2322')).toBe(
       true,
@@ -85,25 +74,17 @@ describe('runTrial in one process', () => {
   it('skips matrices a routine does not apply to (QR gets tall matrices, Cholesky only symmetric ones)', async () => {
     const tall = generateMatrix({ family: 'tall-random', n: 6, m: 12, seed: 2 });
     const square = generateMatrix({ family: 'uniform', n: 6, seed: 2 });
-    const qr = await runTrial({
+    const two = { setName: 'two', matrices: [tall, square] };
+    const qr = await trial(source('householder-qr-row-oriented'), {
+      ...two,
       routine: 'householder-qr',
-      candidateSource: source('householder-qr-row-oriented'),
-      setName: 'two',
-      matrices: [tall, square],
-      timingSizes: [],
     });
     expect(qr.matrices.map((m) => [m.id, m.m, m.n])).toEqual([
       [tall.id, 12, 6],
       [square.id, 6, 6],
     ]);
     expect(qr.matrices[0]!.candidate.metrics.orthogonalityRatio).toBeLessThan(30);
-    const chol = await runTrial({
-      routine: 'cholesky',
-      candidateSource: source('cholesky-row-oriented'),
-      setName: 'two',
-      matrices: [tall, square],
-      timingSizes: [],
-    });
+    const chol = await trial(source('cholesky-row-oriented'), { ...two, routine: 'cholesky' });
     expect(chol.matrices).toEqual([]);
   });
 });

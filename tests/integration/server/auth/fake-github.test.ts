@@ -50,7 +50,10 @@ function exchange(code: string, secret = client.secret) {
 describe('the fake GitHub provider', () => {
   it('shows a sign-in screen listing every demo person', async () => {
     const url = new URL(`${base}/login/oauth/authorize`);
-    url.search = new URLSearchParams({ client_id: client.id, redirect_uri: redirectUri }).toString();
+    url.search = new URLSearchParams({
+      client_id: client.id,
+      redirect_uri: redirectUri,
+    }).toString();
     const res = await fetch(url);
     expect(res.status).toBe(200);
     const html = await res.text();

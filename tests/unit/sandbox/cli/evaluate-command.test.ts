@@ -6,6 +6,14 @@ const example = (name: ExampleName) => `sandbox/kernels/${exampleKernels[name].f
 const rule = (report: ReturnType<typeof parseReport>, id: string) =>
   report.verdict.rules.find((r) => r.rule === id)!;
 
+const NO_TIMING = ['--no-timing'];
+
+/** Runs `evaluate <example> --routine <routine> --json …flags` and parses the JSON report. */
+async function evaluateJson(name: ExampleName, routine: string, flags = NO_TIMING) {
+  const run = await runEvaluate([example(name), '--routine', routine, '--json', ...flags]);
+  return { run, report: parseReport(run.stdout) };
+}
+
 // Each run is the real command in a child process: the JSON document, the exit code and the
 // verdict are what a CI job would see.
 describe('npm run evaluate --json on the example kernels', () => {
@@ -19,9 +27,8 @@ describe('npm run evaluate --json on the example kernels', () => {
   ];
   it.each(sound)('passes the sound kernel %s on the quick set with exit code 0', async (name) => {
     const routine = exampleKernels[name].routine;
-    const run = await runEvaluate([example(name), '--routine', routine, '--json', '--no-timing']);
+    const { run, report } = await evaluateJson(name, routine);
     expect(run.stderr).not.toMatch(/error:/);
-    const report = parseReport(run.stdout);
     expect(run.code).toBe(0);
     expect(report.routine).toBe(routine);
     expect(report.status).toBe('completed');
@@ -31,14 +38,10 @@ describe('npm run evaluate --json on the example kernels', () => {
   });
 
   it('catches an unpivoted LU offered as pivoted on the tiny-pivot matrix', async () => {
-    const run = await runEvaluate([
-      example('lu-no-pivoting-offered-as-pivoting'),
-      '--routine',
+    const { run, report } = await evaluateJson(
+      'lu-no-pivoting-offered-as-pivoting',
       'lu-partial-pivoting',
-      '--json',
-      '--no-timing',
-    ]);
-    const report = parseReport(run.stdout);
+    );
     expect(run.code).toBe(1);
     const accuracy = rule(report, 'factor-accuracy');
     expect(accuracy.passed).toBe(false);
@@ -51,14 +54,7 @@ describe('npm run evaluate --json on the example kernels', () => {
   it.each(['lu-single-precision-updates', 'lu-pivots-identity-perm'] as const)(
     'fails %s on factor accuracy across ordinary matrices',
     async (name) => {
-      const run = await runEvaluate([
-        example(name),
-        '--routine',
-        'lu-partial-pivoting',
-        '--json',
-        '--no-timing',
-      ]);
-      const report = parseReport(run.stdout);
+      const { run, report } = await evaluateJson(name, 'lu-partial-pivoting');
       expect(run.code).toBe(1);
       expect(
         rule(report, 'factor-accuracy').offenders.some((id) => id.startsWith('uniform-')),
@@ -67,14 +63,7 @@ describe('npm run evaluate --json on the example kernels', () => {
   );
 
   it('fails a Cholesky that does not detect an indefinite matrix on the rejection rule', async () => {
-    const run = await runEvaluate([
-      example('cholesky-no-definiteness-check'),
-      '--routine',
-      'cholesky',
-      '--json',
-      '--no-timing',
-    ]);
-    const report = parseReport(run.stdout);
+    const { run, report } = await evaluateJson('cholesky-no-definiteness-check', 'cholesky');
     expect(run.code).toBe(1);
     const rejections = rule(report, 'rejections');
     expect(rejections.passed).toBe(false);
@@ -82,59 +71,35 @@ describe('npm run evaluate --json on the example kernels', () => {
   });
 
   it('records an endless loop as timeouts and the trial as failed to run', async () => {
-    const run = await runEvaluate([
-      example('lu-endless-loop'),
-      '--routine',
-      'lu-partial-pivoting',
-      '--json',
-      '--no-timing',
+    const { run, report } = await evaluateJson('lu-endless-loop', 'lu-partial-pivoting', [
+      ...NO_TIMING,
       '--call-timeout',
       '300',
     ]);
-    const report = parseReport(run.stdout);
     expect(run.code).toBe(1);
     expect(report.status).toBe('trial-failed');
     expect(new Set(report.matrices.map((m) => m.candidate.status))).toEqual(new Set(['timeout']));
   });
 
   it('records a memory hog as out-of-memory', async () => {
-    const run = await runEvaluate([
-      example('lu-memory-hog'),
-      '--routine',
-      'lu-partial-pivoting',
-      '--json',
-      '--no-timing',
-    ]);
-    const report = parseReport(run.stdout);
+    const { run, report } = await evaluateJson('lu-memory-hog', 'lu-partial-pivoting');
     expect(run.code).toBe(1);
     expect(report.matrices[0]!.candidate.status).toBe('out-of-memory');
   });
 
   it('finds nothing of the host for a kernel that probes for it', async () => {
-    const run = await runEvaluate([
-      example('lu-host-probe'),
-      '--routine',
-      'lu-partial-pivoting',
-      '--json',
-      '--no-timing',
-    ]);
-    const report = parseReport(run.stdout);
+    const { report } = await evaluateJson('lu-host-probe', 'lu-partial-pivoting');
     expect(report.matrices[0]!.candidate.status).toBe('threw');
     expect(report.matrices[0]!.candidate.message).toContain('host probe found nothing');
   });
 
   it('calls a much slower loop order slower at n = 256, and says so in the timing rule', async () => {
-    const run = await runEvaluate([
-      example('lu-column-stride'),
-      '--routine',
-      'lu-partial-pivoting',
+    const { run, report } = await evaluateJson('lu-column-stride', 'lu-partial-pivoting', [
       '--against',
       example('lu-partial-pivoting-right-looking'),
       '--set',
       'tests/fixtures/sets/timing-256.json',
-      '--json',
     ]);
-    const report = parseReport(run.stdout);
     expect(report.timing).toHaveLength(1);
     expect(report.timing[0]!.verdict).toBe('slower');
     expect(report.timing[0]!.ratio!).toBeGreaterThan(1.2);
@@ -144,15 +109,11 @@ describe('npm run evaluate --json on the example kernels', () => {
   });
 
   it('reads a set with a Matrix Market file and judges the uploaded matrix too', async () => {
-    const run = await runEvaluate([
-      example('lu-partial-pivoting-right-looking'),
-      '--routine',
+    const { run, report } = await evaluateJson(
+      'lu-partial-pivoting-right-looking',
       'lu-partial-pivoting',
-      '--set',
-      'tests/fixtures/matrix-market/set-with-file.json',
-      '--json',
-    ]);
-    const report = parseReport(run.stdout);
+      ['--set', 'tests/fixtures/matrix-market/set-with-file.json'],
+    );
     expect(run.code).toBe(0);
     expect(report.matrices.map((m) => m.id)).toEqual(['hilbert-n6', 'file-general-5x5']);
     expect(report.matrices[1]!.family).toBe('file');

@@ -3,11 +3,8 @@ import { loadKernel, type LoadOptions } from '@sandbox/isolate/kernel-runner.ts'
 import type { KernelInstance } from '@sandbox/isolate/kernel-instance.ts';
 import { readKernelSource } from '@sandbox/kernels/read-kernel-source.ts';
 import { starterKernelFiles } from '@sandbox/kernels/starter-kernels.ts';
-import {
-  luRatio,
-  randomMatrix,
-  RATIO_THRESHOLD,
-} from '@tests/unit/sandbox/kernels/factor-checks.ts';
+import { randomMatrix } from '@tests/helpers/test-matrices.ts';
+import { luRatio, RATIO_THRESHOLD } from '@tests/unit/sandbox/kernels/factor-checks.ts';
 
 /** Small limits keep each hostile case fast: a timeout costs 300 ms. */
 export const hostileLimits = { callTimeoutMs: 300, loadTimeoutMs: 300, memoryMb: 32 };

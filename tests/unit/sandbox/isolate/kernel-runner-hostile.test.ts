@@ -13,6 +13,9 @@ import {
 
 const example = (name: keyof typeof exampleKernels) => readKernelSource(exampleKernels[name].file);
 
+/** Loads a hostile kernel and makes one call on the default 4×4 input. */
+const callOnce = async (source: string) => (await loadHostile(source)).call(args());
+
 afterEach(async () => {
   cleanUp();
   await expectSoundKernelRuns();
@@ -42,8 +45,7 @@ describe('kernels that never finish or take too much', () => {
   });
 
   it('a typed-array memory hog is out of memory', async () => {
-    const kernel = await loadHostile(example('lu-memory-hog'));
-    const out = await kernel.call(args());
+    const out = await callOnce(example('lu-memory-hog'));
     expect([out.status, out.message]).toEqual([
       'out-of-memory',
       "The kernel went over the isolate's 32 MB memory limit.",
@@ -67,7 +69,7 @@ export function factor(a: Float64Array, n: number) {
 
   it('deep recursion is a thrown RangeError', async () => {
     const source = `function depth(k: number): number {\n  return depth(k + 1) + 1;\n}\nexport function factor(a: Float64Array, n: number) {\n  return { lu: a, perm: new Int32Array(depth(n)) };\n}`;
-    const out = await (await loadHostile(source)).call(args());
+    const out = await callOnce(source);
     expect([out.status, out.message]).toEqual([
       'threw',
       'RangeError: Maximum call stack size exceeded',
@@ -80,28 +82,22 @@ describe('what a kernel throws', () => {
     `export function factor(a: Float64Array, n: number): { lu: Float64Array; perm: Int32Array } {\n  if (n > 0) throw ${what};\n  return { lu: a, perm: new Int32Array(n) };\n}`;
 
   it('a string comes back as it is', async () => {
-    const out = await (await loadHostile(thrower("'pivot 3 is zero'"))).call(args());
+    const out = await callOnce(thrower("'pivot 3 is zero'"));
     expect([out.status, out.message]).toEqual(['threw', 'pivot 3 is zero']);
   });
 
   it('an Error comes back as name and message', async () => {
-    const out = await (
-      await loadHostile(thrower("new RangeError('not positive definite at column 2')"))
-    ).call(args());
+    const out = await callOnce(thrower("new RangeError('not positive definite at column 2')"));
     expect(out.message).toBe('RangeError: not positive definite at column 2');
   });
 
   it('an object whose toString never returns times out inside the isolate', async () => {
-    const out = await (
-      await loadHostile(thrower('{ toString: (): string => { for (;;) n += 1; } }'))
-    ).call(args());
+    const out = await callOnce(thrower('{ toString: (): string => { for (;;) n += 1; } }'));
     expect(out.status).toBe('timeout');
   });
 
   it('an object whose toString throws is described, not trusted', async () => {
-    const out = await (
-      await loadHostile(thrower("{ toString: (): string => { throw new Error('no'); } }"))
-    ).call(args());
+    const out = await callOnce(thrower("{ toString: (): string => { throw new Error('no'); } }"));
     expect([out.status, out.message]).toEqual([
       'threw',
       'a thrown value that cannot be turned into text',
@@ -109,9 +105,7 @@ describe('what a kernel throws', () => {
   });
 
   it('a huge message is cut to 500 characters', async () => {
-    const out = await (
-      await loadHostile(thrower("{ toString: () => 'x'.repeat(1e6) }"))
-    ).call(args());
+    const out = await callOnce(thrower("{ toString: () => 'x'.repeat(1e6) }"));
     expect(out.status).toBe('threw');
     expect(out.message).toBe(`${'x'.repeat(500)}…`);
   });

@@ -6,11 +6,8 @@ import type { CallArgs } from '@sandbox/isolate/transfer.ts';
 import { typeCheckKernel } from '@sandbox/isolate/type-check.ts';
 import { exampleKernels, type ExampleName } from '@sandbox/kernels/example-catalog.ts';
 import { readKernelSource } from '@sandbox/kernels/read-kernel-source.ts';
-import {
-  luRatio,
-  randomMatrix,
-  RATIO_THRESHOLD,
-} from '@tests/unit/sandbox/kernels/factor-checks.ts';
+import { randomMatrix } from '@tests/helpers/test-matrices.ts';
+import { luRatio, RATIO_THRESHOLD } from '@tests/unit/sandbox/kernels/factor-checks.ts';
 import { residualRatios, sampleArgs } from '@tests/unit/sandbox/kernels/routine-checks.ts';
 
 const limits = { callTimeoutMs: 300, loadTimeoutMs: 300, memoryMb: 64 };

@@ -1,14 +1,12 @@
 import type { RoutineSlug } from '@shared/routines.ts';
 import type { RoutineResult } from '@sandbox/contracts/routine-results.ts';
 import type { CallArgs } from '@sandbox/isolate/transfer.ts';
+import { randomMatrix, randomSpd, randomUpper } from '@tests/helpers/test-matrices.ts';
 import {
   choleskyRatio,
   ldltRatio,
   luRatio,
   qrRatios,
-  randomMatrix,
-  randomSpd,
-  randomUpper,
   solveRatio,
 } from '@tests/unit/sandbox/kernels/factor-checks.ts';
 

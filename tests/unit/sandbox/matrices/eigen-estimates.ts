@@ -1,4 +1,5 @@
-import { cholesky } from './tiny-factorizations.ts';
+import { matmul } from '@tests/helpers/dense-matrix.ts';
+import { cholesky } from '@tests/helpers/factorizations.ts';
 
 /**
  * Extreme eigenvalues of a symmetric positive definite matrix for the tests: the power method
@@ -12,15 +13,7 @@ export function extremeEigenvalues(
 ): { min: number; max: number } {
   const { l, failedAt } = cholesky(a, n);
   if (failedAt !== undefined) throw new Error(`not positive definite (step ${failedAt})`);
-  const multiply = (x: Float64Array) => {
-    const y = new Float64Array(n);
-    for (let i = 0; i < n; i++) {
-      let s = 0;
-      for (let j = 0; j < n; j++) s += a[i * n + j]! * x[j]!;
-      y[i] = s;
-    }
-    return y;
-  };
+  const multiply = (x: Float64Array) => matmul(a, x, n, n, 1);
   const solve = (b: Float64Array) => {
     const y = Float64Array.from(b);
     for (let i = 0; i < n; i++) {

@@ -3,23 +3,8 @@ import { generateMatrix } from '@sandbox/matrices/generate.ts';
 import { createRandom } from '@sandbox/matrices/random.ts';
 import { randomOrthogonal } from '@sandbox/matrices/random-orthogonal.ts';
 import { UNIT_ROUNDOFF } from '@sandbox/numerics/unit-roundoff.ts';
-import { gepp, luSolve, matVec } from './tiny-factorizations.ts';
-
-/** AᵀA for an n×n row-major A. */
-function gram(a: Float64Array, n: number): Float64Array {
-  const g = new Float64Array(n * n);
-  for (let i = 0; i < n; i++)
-    for (let j = 0; j < n; j++) {
-      let s = 0;
-      for (let k = 0; k < n; k++) s += a[k * n + i]! * a[k * n + j]!;
-      g[i * n + j] = s;
-    }
-  return g;
-}
-
-function transpose(a: Float64Array, n: number): Float64Array {
-  return Float64Array.from({ length: n * n }, (_, k) => a[(k % n) * n + Math.floor(k / n)]!);
-}
+import { matmul, transpose } from '@tests/helpers/dense-matrix.ts';
+import { gepp, luSolve } from '@tests/helpers/factorizations.ts';
 
 /**
  * σ_max and σ_min of a square A: power iteration on AᵀA applied as Aᵀ(A·x), and inverse
@@ -30,7 +15,7 @@ function extremeSingularValues(
   n: number,
   iterations: number,
 ): { min: number; max: number } {
-  const at = transpose(a, n);
+  const at = transpose(a, n, n);
   const luA = gepp(a, n);
   const luAt = gepp(at, n);
   const run = (step: (x: Float64Array) => Float64Array) => {
@@ -45,7 +30,7 @@ function extremeSingularValues(
     }
     return ratio;
   };
-  const max = Math.sqrt(run((x) => matVec(at, matVec(a, x, n, n), n, n)));
+  const max = Math.sqrt(run((x) => matmul(at, matmul(a, x, n, n, 1), n, n, 1)));
   const min = 1 / Math.sqrt(run((x) => luSolve(luA, luSolve(luAt, x, n), n)));
   return { min, max };
 }
@@ -55,7 +40,7 @@ describe('randomOrthogonal', () => {
     // ‖I − QᵀQ‖₁/(n·u) is about 0.7 for Householder QR at n = 100 (references §4.10).
     const n = 60;
     const q = randomOrthogonal(n, createRandom(1));
-    const g = gram(q, n);
+    const g = matmul(transpose(q, n, n), q, n, n, n); // QᵀQ
     let worst = 0;
     for (let j = 0; j < n; j++) {
       let col = 0;

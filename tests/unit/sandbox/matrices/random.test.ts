@@ -6,6 +6,21 @@ import {
   streamId,
 } from '@sandbox/matrices/random.ts';
 
+/** Mean, mean square and the fraction of draws where `flag` holds, over 100 000 draws. */
+function sample(draw: () => number, flag: (x: number) => boolean) {
+  const count = 100_000;
+  let sum = 0;
+  let sumSq = 0;
+  let flagged = 0;
+  for (let k = 0; k < count; k++) {
+    const x = draw();
+    if (flag(x)) flagged++;
+    sum += x;
+    sumSq += x * x;
+  }
+  return { mean: sum / count, meanSquare: sumSq / count, fraction: flagged / count };
+}
+
 describe('xoshiro128**', () => {
   it('reproduces the reference implementation from the state {1, 2, 3, 4}', () => {
     // Source: rust-random/rngs, rand_xoshiro/src/xoshiro128starstar.rs, test `reference`: "These
@@ -67,39 +82,26 @@ describe('createRandom', () => {
 
   it('draws uniforms in [0, 1) on the 2^-53 grid with mean 1/2 and variance 1/12', () => {
     const r = createRandom(3);
-    const count = 100_000;
-    let sum = 0;
-    let sumSq = 0;
-    let offGrid = 0;
-    for (let k = 0; k < count; k++) {
-      const u = r.uniform();
-      if (!(u >= 0 && u < 1 && Number.isInteger(u * 2 ** 53))) offGrid++;
-      sum += u;
-      sumSq += u * u;
-    }
-    expect(offGrid).toBe(0);
-    const mean = sum / count;
+    const { mean, meanSquare, fraction } = sample(
+      () => r.uniform(),
+      (u) => !(u >= 0 && u < 1 && Number.isInteger(u * 2 ** 53)),
+    );
+    expect(fraction).toBe(0); // off the grid or outside [0, 1)
     // Uniform(0, 1): mean 1/2, variance 1/12; 5 standard errors of the mean is 0.0046.
     expect(Math.abs(mean - 0.5)).toBeLessThan(0.0046);
-    expect(Math.abs(sumSq / count - mean * mean - 1 / 12)).toBeLessThan(0.002);
+    expect(Math.abs(meanSquare - mean * mean - 1 / 12)).toBeLessThan(0.002);
   });
 
   it('draws standard normals with mean 0, variance 1 and the right tail', () => {
     const r = createRandom(5);
-    const count = 100_000;
-    let sum = 0;
-    let sumSq = 0;
-    let beyond2 = 0;
-    for (let k = 0; k < count; k++) {
-      const z = r.normal();
-      sum += z;
-      sumSq += z * z;
-      if (Math.abs(z) > 2) beyond2++;
-    }
+    const { mean, meanSquare, fraction } = sample(
+      () => r.normal(),
+      (z) => Math.abs(z) > 2,
+    );
     // N(0, 1): P(|Z| > 2) = 0.0455 (standard normal table); tolerances are about 5 standard errors.
-    expect(Math.abs(sum / count)).toBeLessThan(0.016);
-    expect(Math.abs(sumSq / count - 1)).toBeLessThan(0.023);
-    expect(Math.abs(beyond2 / count - 0.0455)).toBeLessThan(0.0033);
+    expect(Math.abs(mean)).toBeLessThan(0.016);
+    expect(Math.abs(meanSquare - 1)).toBeLessThan(0.023);
+    expect(Math.abs(fraction - 0.0455)).toBeLessThan(0.0033);
   });
 });
 

@@ -3,7 +3,7 @@ import type { RoutineSlug } from '@shared/routines.ts';
 import { generateMatrix } from '@sandbox/matrices/generate.ts';
 import { familySlugs, type ReferenceMatrix } from '@sandbox/matrices/reference-matrix.ts';
 import { checkMatrixSetJson, namedSet, parseMatrixSetJson } from '@sandbox/matrices/sets.ts';
-import { cholesky, gepp, ldlt, luNoPivot, luSolve } from './tiny-factorizations.ts';
+import { cholesky, gepp, ldlt, luNoPivot, luSolve } from '@tests/helpers/factorizations.ts';
 
 function generated(name: 'quick' | 'standard'): ReferenceMatrix[] {
   return namedSet(name).items.map((item) => {

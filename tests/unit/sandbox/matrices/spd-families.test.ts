@@ -3,8 +3,16 @@ import { exactIntegerInverse } from '@sandbox/matrices/exact-analysis.ts';
 import { generateMatrix } from '@sandbox/matrices/generate.ts';
 import { scaledIntegers } from '@sandbox/matrices/exact-integers.ts';
 import { extremeEigenvalues } from './eigen-estimates.ts';
-import { determinant, frac, isIdentity, matMul, type Fraction } from './fractions.ts';
-import { cholesky, luNoPivot, pivotsOf } from './tiny-factorizations.ts';
+import {
+  type Rational,
+  determinantExact,
+  fromDoubles,
+  isIdentity,
+  matMulExact,
+  rational,
+} from '@tests/helpers/rational.ts';
+import { pivotsOf } from '@tests/helpers/dense-matrix.ts';
+import { cholesky, luNoPivot } from '@tests/helpers/factorizations.ts';
 
 const rel = (a: number, b: number) => Math.abs(a / b - 1);
 
@@ -92,25 +100,26 @@ describe('lehmer', () => {
     // Inverse tridiagonal: (A⁻¹)_ii = 4i³/(4i²−1) (i < n), (A⁻¹)_nn = n²/(2n−1),
     // (A⁻¹)_{i,i+1} = −i(i+1)/(2i+1); det = (2n)!/(2ⁿ(n!)³): 5/12, 21/320, 143/114688
     // (n = 3, 5, 8). References §4.5 and §11 row 23 (Burkardt lehmer.py, Newman & Todd 1958).
-    const dets: [number, Fraction][] = [
-      [3, frac(5, 12)],
-      [5, frac(21, 320)],
-      [8, frac(143, 114688)],
+    const dets: [number, Rational][] = [
+      [3, rational(5, 12)],
+      [5, rational(21, 320)],
+      [8, rational(143, 114688)],
     ];
     for (const [n, det] of dets) {
-      const a: Fraction[] = [];
-      const inv: Fraction[] = [];
+      const a: Rational[] = [];
+      const inv: Rational[] = [];
       for (let i = 1; i <= n; i++)
         for (let j = 1; j <= n; j++) {
-          a.push(frac(Math.min(i, j), Math.max(i, j)));
-          if (i === j) inv.push(i < n ? frac(4 * i ** 3, 4 * i * i - 1) : frac(n * n, 2 * n - 1));
+          a.push(rational(Math.min(i, j), Math.max(i, j)));
+          if (i === j)
+            inv.push(i < n ? rational(4 * i ** 3, 4 * i * i - 1) : rational(n * n, 2 * n - 1));
           else if (Math.abs(i - j) === 1) {
             const k = Math.min(i, j);
-            inv.push(frac(-k * (k + 1), 2 * k + 1));
-          } else inv.push(frac(0));
+            inv.push(rational(-k * (k + 1), 2 * k + 1));
+          } else inv.push(rational(0));
         }
-      expect(isIdentity(matMul(a, inv, n), n)).toBe(true);
-      expect(determinant(a, n)).toEqual(det);
+      expect(isIdentity(matMulExact(a, inv, n, n, n), n)).toBe(true);
+      expect(determinantExact(a, n)).toEqual(det);
       // The generator stores exactly these entries, rounded.
       const g = generateMatrix({ family: 'lehmer', n });
       a.forEach((x, k) => expect(g.data[k]).toBe(Number(x.num) / Number(x.den)));
@@ -185,12 +194,7 @@ describe('moler', () => {
       const g = generateMatrix({ family: 'moler', n: m });
       const { min, max } = extremeEigenvalues(g.data, m, 2000);
       expect(rel(max / min, kappa)).toBeLessThan(1e-4);
-      expect(
-        determinant(
-          Array.from(g.data, (x) => frac(x)),
-          m,
-        ),
-      ).toEqual(frac(1));
+      expect(determinantExact(fromDoubles(g.data), m)).toEqual(rational(1));
     }
     expect(a.properties.expectations.cholesky).toBe('factor');
   });
@@ -234,12 +238,7 @@ describe('poisson-1d', () => {
       expect(generateMatrix({ family: 'poisson-1d', n }).properties.exactCondition1).toBe(kappa);
     const n = 12;
     const t = generateMatrix({ family: 'poisson-1d', n });
-    expect(
-      determinant(
-        Array.from(t.data, (x) => frac(x)),
-        n,
-      ),
-    ).toEqual(frac(n + 1));
+    expect(determinantExact(fromDoubles(t.data), n)).toEqual(rational(n + 1));
     const { lu } = luNoPivot(t.data, n);
     pivotsOf(lu, n).forEach((u, i) =>
       expect(rel(u, (i + 2) / (i + 1))).toBeLessThanOrEqual(2 ** -52),

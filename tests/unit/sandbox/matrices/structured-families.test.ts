@@ -2,8 +2,9 @@ import { describe, expect, it } from 'vitest';
 import { exactFacts } from '@sandbox/matrices/exact-analysis.ts';
 import { generateMatrix } from '@sandbox/matrices/generate.ts';
 import { UNIT_ROUNDOFF } from '@sandbox/numerics/unit-roundoff.ts';
-import { determinant, div, frac, mul, sub } from './fractions.ts';
-import { gepp, growthFactor, luNoPivot, luSolve, matVec, pivotsOf } from './tiny-factorizations.ts';
+import { determinantExact, div, fromDoubles, mul, rational, sub } from '@tests/helpers/rational.ts';
+import { growthFactor, matmul, pivotsOf } from '@tests/helpers/dense-matrix.ts';
+import { gepp, luNoPivot, luSolve } from '@tests/helpers/factorizations.ts';
 
 const rel = (a: number, b: number) => Math.abs(a / b - 1);
 
@@ -16,15 +17,10 @@ describe('frank', () => {
     expect(Array.from(f.data.slice(20))).toEqual([0, 0, 0, 1, 1]);
     for (const n of [5, 12, 20]) {
       const g = generateMatrix({ family: 'frank', n });
-      expect(
-        determinant(
-          Array.from(g.data, (x) => frac(x)),
-          n,
-        ),
-      ).toEqual(frac(1));
+      expect(determinantExact(fromDoubles(g.data), n)).toEqual(rational(1));
       const e = new Float64Array(n);
       e[n - 1] = 1;
-      expect(Array.from(matVec(g.data, e, n, n))).toEqual(new Array(n).fill(1));
+      expect(Array.from(matmul(g.data, e, n, n, 1))).toEqual(new Array(n).fill(1));
     }
   });
 
@@ -33,10 +29,10 @@ describe('frank', () => {
     // in double the late pivots drift (κ₂ beyond 1e19 already at n = 20, references §4.6) but
     // stay well away from zero, which is what the 'factor' expectation needs.
     for (const n of [5, 12]) {
-      const a = Array.from(generateMatrix({ family: 'frank', n }).data, (x) => frac(x));
+      const a = fromDoubles(generateMatrix({ family: 'frank', n }).data);
       for (let k = 0; k < n; k++) {
         const pivot = a[k * n + k]!;
-        expect(pivot).toEqual(k === 0 ? frac(n) : frac(n - k, n + 1 - k));
+        expect(pivot).toEqual(k === 0 ? rational(n) : rational(n - k, n + 1 - k));
         for (let i = k + 1; i < n; i++) {
           const l = div(a[i * n + k]!, pivot);
           for (let j = k; j < n; j++) a[i * n + j] = sub(a[i * n + j]!, mul(l, a[k * n + j]!));
@@ -102,12 +98,7 @@ describe('vandermonde', () => {
       const n = k + 3;
       const v = generateMatrix({ family: 'vandermonde', n });
       expect(v.data[(n - 1) * n + n - 1]).toBe(n ** (n - 1));
-      expect(
-        determinant(
-          Array.from(v.data, (x) => frac(x)),
-          n,
-        ),
-      ).toEqual(frac(det));
+      expect(determinantExact(fromDoubles(v.data), n)).toEqual(rational(det));
     });
     expect(() => generateMatrix({ family: 'vandermonde', n: 200 })).toThrow(/128/);
   });
@@ -149,7 +140,7 @@ describe('worst-growth', () => {
       [60, 1],
     ] as const) {
       const w = generateMatrix({ family: 'worst-growth', n });
-      const b = matVec(w.data, new Float64Array(n).fill(1), n, n); // integers: exact
+      const b = matmul(w.data, new Float64Array(n).fill(1), n, n, 1); // integers: exact
       const x = luSolve(gepp(w.data, n), b, n);
       expect(Math.max(...Array.from(x, (v) => Math.abs(v - 1)))).toBe(error);
     }

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { generateMatrix } from '@sandbox/matrices/generate.ts';
 import { UNIT_ROUNDOFF } from '@sandbox/numerics/unit-roundoff.ts';
+import { pivotsOf } from '@tests/helpers/dense-matrix.ts';
 import {
   cholesky,
   gepp,
@@ -8,8 +9,7 @@ import {
   ldlt,
   luNoPivot,
   luSolve,
-  pivotsOf,
-} from './tiny-factorizations.ts';
+} from '@tests/helpers/factorizations.ts';
 
 /** ‖A − L·U‖₁ evaluated in double for a packed LU without exchanges (GET01 style, references §1.1). */
 function factorResidual1(

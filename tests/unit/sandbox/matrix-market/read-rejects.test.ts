@@ -34,6 +34,19 @@ function expectRejected(
   expect(error.message).toBe(`line ${line}: ${reason}`);
 }
 
+/** A file that must be rejected: title, text, and the line, code and reason expected. */
+type RejectCase = [
+  title: string,
+  text: string,
+  line: number,
+  code: MatrixMarketErrorCode,
+  reason: string,
+  limits?: Partial<MatrixMarketLimits>,
+];
+
+const expectCase = (...[, text, line, code, reason, limits]: RejectCase) =>
+  expectRejected(text, line, code, reason, limits);
+
 const GENERAL = '%%MatrixMarket matrix coordinate real general';
 const SYMMETRIC = '%%MatrixMarket matrix coordinate real symmetric';
 const SKEW = '%%MatrixMarket matrix coordinate real skew-symmetric';
@@ -43,140 +56,115 @@ const file = (...lines: string[]): string => lines.join('\n') + '\n';
 // reference reader mmio.c (mm_read_banner, mm_is_valid), as summarised in
 // numerics-references.md §7; the limits and the strictness beyond the spec are the service's own.
 describe('parseMatrixMarket rejects: banner', () => {
-  it('an empty file', () => {
-    expectRejected('', 1, 'empty-file', 'the file is empty');
-  });
-
-  it('a file whose first line is not the banner', () => {
-    expectRejected(
+  it.each<RejectCase>([
+    ['an empty file', '', 1, 'empty-file', 'the file is empty'],
+    [
+      'a file whose first line is not the banner',
       file('% no banner', '1 1 1', '1 1 1'),
       1,
       'bad-banner',
       "the first line must be the banner '%%MatrixMarket matrix <format> <field> <symmetry>'",
-    );
-  });
-
-  it('a banner on line 2 after a blank line (the banner must be line 1, NISTIR 5935 §2)', () => {
-    expectRejected(
+    ],
+    [
+      'a banner on line 2 after a blank line (the banner must be line 1, NISTIR 5935 §2)',
       file('', GENERAL, '1 1 1', '1 1 1'),
       1,
       'bad-banner',
       "the first line must be the banner '%%MatrixMarket matrix <format> <field> <symmetry>'",
-    );
-  });
-
-  it('a banner without the symmetry keyword', () => {
-    expectRejected(
+    ],
+    [
+      'a banner without the symmetry keyword',
       file('%%MatrixMarket matrix coordinate real', '1 1 1', '1 1 1'),
       1,
       'bad-banner',
       'the banner needs 4 keywords after %%MatrixMarket (object, format, field, symmetry), found 3',
-    );
-  });
-
-  it('an unknown format', () => {
-    expectRejected(
+    ],
+    [
+      'an unknown format',
       file('%%MatrixMarket matrix dense real general', '1 1', '1'),
       1,
       'bad-banner',
       "unknown format 'dense' (expected coordinate or array)",
-    );
-  });
-
-  it('the vector object (valid in the framework, unsupported here)', () => {
-    expectRejected(
+    ],
+    [
+      'the vector object (valid in the framework, unsupported here)',
       file('%%MatrixMarket vector coordinate real general', '3 1', '1 1'),
       1,
       'unsupported-type',
       "object 'vector' is not supported; only 'matrix' is",
-    );
-  });
-
-  it('the complex field, saying it is unsupported', () => {
-    expectRejected(
+    ],
+    [
+      'the complex field, saying it is unsupported',
       file('%%MatrixMarket matrix coordinate complex general', '1 1 1', '1 1 1 0'),
       1,
       'unsupported-type',
       "field 'complex' is not supported: only real, integer and pattern matrices are read",
-    );
-  });
-
-  it('hermitian symmetry, saying it is unsupported', () => {
-    expectRejected(
+    ],
+    [
+      'hermitian symmetry, saying it is unsupported',
       file('%%MatrixMarket matrix coordinate real hermitian', '1 1 1', '1 1 1'),
       1,
       'unsupported-type',
       "symmetry 'hermitian' is not supported: it needs the complex field, which is not supported",
-    );
-  });
-
-  // References §11 row 47: field `double` is on Burkardt's page, not in the spec; mmio rejects it.
-  it("field 'double'", () => {
-    expectRejected(
+    ],
+    // References §11 row 47: field `double` is on Burkardt's page, not in the spec; mmio rejects it.
+    [
+      "field 'double'",
       file('%%MatrixMarket matrix coordinate double general', '1 1 1', '1 1 1'),
       1,
       'bad-banner',
       "unknown field 'double' (expected real, integer, complex or pattern)",
-    );
-  });
-
-  // References §11 row 47: mm_is_valid rejects pattern with array.
-  it('pattern with the array format', () => {
-    expectRejected(
+    ],
+    // References §11 row 47: mm_is_valid rejects pattern with array.
+    [
+      'pattern with the array format',
       file('%%MatrixMarket matrix array pattern general', '1 1'),
       1,
       'bad-banner',
       "field 'pattern' is only valid with the coordinate format",
-    );
-  });
-
-  // mm_is_valid rejects pattern with skew-symmetric (references §7).
-  it('pattern with skew-symmetric', () => {
-    expectRejected(
+    ],
+    // mm_is_valid rejects pattern with skew-symmetric (references §7).
+    [
+      'pattern with skew-symmetric',
       file('%%MatrixMarket matrix coordinate pattern skew-symmetric', '2 2 1', '2 1'),
       1,
       'bad-banner',
       "field 'pattern' cannot be skew-symmetric (there are no values to negate)",
-    );
-  });
+    ],
+  ])('%s', expectCase);
 });
 
 describe('parseMatrixMarket rejects: size line', () => {
-  it('a file that ends before the size line', () => {
-    expectRejected(
+  it.each<RejectCase>([
+    [
+      'a file that ends before the size line',
       file(GENERAL, '% only a comment'),
       2,
       'bad-size-line',
       'the file ends before the size line',
-    );
-  });
-
-  it('a coordinate size line with two fields', () => {
-    expectRejected(
+    ],
+    [
+      'a coordinate size line with two fields',
       file(GENERAL, '5 5', '1 1 1'),
       2,
       'bad-size-line',
       "the size line of a coordinate file must be 'rows columns entries', found 2 fields",
-    );
-  });
-
-  it('a non-integer size', () => {
-    expectRejected(
+    ],
+    [
+      'a non-integer size',
       file(GENERAL, '3.5 3 1', '1 1 1'),
       2,
       'bad-size-line',
       "row count '3.5' is not a non-negative integer",
-    );
-  });
-
-  it('a negative size', () => {
-    expectRejected(
+    ],
+    [
+      'a negative size',
       file(GENERAL, '3 -3 1', '1 1 1'),
       2,
       'bad-size-line',
       'column count -3 is negative',
-    );
-  });
+    ],
+  ])('%s', expectCase);
 
   // Invented hostile fixture: a 10⁹ × 10⁹ declaration with a one-line body must fail on the size
   // line, before any allocation (allocating would raise a RangeError, not this error).
@@ -188,317 +176,267 @@ describe('parseMatrixMarket rejects: size line', () => {
     expectRejected(text, 3, 'too-large', '1000000000 rows exceed the limit of 4096');
   });
 
-  it('more columns than maxCols', () => {
-    expectRejected(file(GENERAL, '2 9 0'), 2, 'too-large', '9 columns exceed the limit of 8', {
-      maxCols: 8,
-    });
-  });
-
-  it('m·n beyond maxDenseEntries even when each size is within its limit', () => {
-    expectRejected(
+  it.each<RejectCase>([
+    [
+      'more columns than maxCols',
+      file(GENERAL, '2 9 0'),
+      2,
+      'too-large',
+      '9 columns exceed the limit of 8',
+      {
+        maxCols: 8,
+      },
+    ],
+    [
+      'm·n beyond maxDenseEntries even when each size is within its limit',
       file('%%MatrixMarket matrix array real general', '300 300'),
       2,
       'too-large',
       'a 300×300 matrix has 90000 entries, more than the limit of 65536',
       { maxDenseEntries: 65536 },
-    );
-  });
-
-  it('a non-square symmetric declaration', () => {
-    expectRejected(
+    ],
+    [
+      'a non-square symmetric declaration',
       file(SYMMETRIC, '3 4 1', '1 1 1'),
       2,
       'bad-size-line',
       'a symmetric matrix must be square, but the size line declares 3×4',
-    );
-  });
-
-  it('more entries declared than a symmetric matrix has lower-triangle positions', () => {
-    expectRejected(
+    ],
+    [
+      'more entries declared than a symmetric matrix has lower-triangle positions',
       file(SYMMETRIC, '3 3 1000000000', '1 1 1'),
       2,
       'too-many-entries',
       '1000000000 entries declared, but a 3×3 symmetric matrix has only 6 positions on or below the diagonal',
-    );
-  });
+    ],
+  ])('%s', expectCase);
 });
 
 describe('parseMatrixMarket rejects: entry count', () => {
-  it('too few entries (reported on the last line of the file)', () => {
-    expectRejected(
+  it.each<RejectCase>([
+    [
+      'too few entries (reported on the last line of the file)',
       file(GENERAL, '3 3 4', '1 1 1', '2 2 1', '3 3 1'),
       5,
       'too-few-entries',
       'the file ends after 3 of the 4 entries declared on line 2',
-    );
-  });
-
-  it('too many entries', () => {
-    expectRejected(
+    ],
+    [
+      'too many entries',
       file(GENERAL, '3 3 2', '1 1 1', '2 2 1', '3 3 1'),
       5,
       'too-many-entries',
       'more data after the 2 entries declared on line 2',
-    );
-  });
-
-  it('too few array values', () => {
-    expectRejected(
+    ],
+    [
+      'too few array values',
       file('%%MatrixMarket matrix array real general', '2 2', '1', '2', '3'),
       5,
       'too-few-entries',
       'the file ends after 3 of the 4 values declared by the size line (line 2)',
-    );
-  });
-
-  it('too many values in a symmetric array (n(n+1)/2 = 3 for n = 2)', () => {
-    expectRejected(
+    ],
+    [
+      'too many values in a symmetric array (n(n+1)/2 = 3 for n = 2)',
       file('%%MatrixMarket matrix array real symmetric', '2 2', '1', '2', '3', '4'),
       6,
       'too-many-entries',
       'more data after the 3 values declared by the size line (line 2)',
-    );
-  });
+    ],
+  ])('%s', expectCase);
 });
 
 describe('parseMatrixMarket rejects: data lines', () => {
-  // The brief's own example message.
-  it('a zero column index', () => {
-    expectRejected(
+  it.each<RejectCase>([
+    // The brief's own example message.
+    [
+      'a zero column index',
       file(GENERAL, '% a', '% b', '5 5 4', '1 1 1', '2 2 1', '3 0 1', '4 4 1'),
       7,
       'index-out-of-range',
       'column index 0 is out of range 1..5',
-    );
-  });
-
-  it('a row index beyond the row count', () => {
-    expectRejected(
+    ],
+    [
+      'a row index beyond the row count',
       file(GENERAL, '3 4 1', '4 1 2.0'),
       3,
       'index-out-of-range',
       'row index 4 is out of range 1..3',
-    );
-  });
-
-  it('a negative index', () => {
-    expectRejected(
+    ],
+    [
+      'a negative index',
       file(GENERAL, '3 3 1', '2 -1 2.0'),
       3,
       'index-out-of-range',
       'column index -1 is out of range 1..3',
-    );
-  });
-
-  it('a non-integer index', () => {
-    expectRejected(
+    ],
+    [
+      'a non-integer index',
       file(GENERAL, '3 3 1', '1.5 1 2.0'),
       3,
       'bad-entry-line',
       "row index '1.5' is not an integer",
-    );
-  });
-
-  it('a missing value on a real coordinate line', () => {
-    expectRejected(
+    ],
+    [
+      'a missing value on a real coordinate line',
       file(GENERAL, '3 3 1', '1 1'),
       3,
       'bad-entry-line',
       "expected 'row column value', found 2 fields",
-    );
-  });
-
-  it('a value on a pattern line', () => {
-    expectRejected(
+    ],
+    [
+      'a value on a pattern line',
       file('%%MatrixMarket matrix coordinate pattern general', '2 2 1', '1 1 5'),
       3,
       'bad-entry-line',
       "expected 'row column', found 3 fields",
-    );
-  });
-
-  it('two values on one array line', () => {
-    expectRejected(
+    ],
+    [
+      'two values on one array line',
       file('%%MatrixMarket matrix array real general', '2 1', '1 2'),
       3,
       'bad-entry-line',
       'expected one value per line, found 2',
-    );
-  });
-
-  it('a comment line among the data lines (comments precede the size line, NISTIR 5935 §2)', () => {
-    expectRejected(
+    ],
+    [
+      'a comment line among the data lines (comments precede the size line, NISTIR 5935 §2)',
       file(GENERAL, '2 2 2', '1 1 1', '% late comment', '2 2 1'),
       4,
       'bad-entry-line',
       'comment lines must come before the size line',
-    );
-  });
-
-  it('a non-numeric value', () => {
-    expectRejected(
+    ],
+    [
+      'a non-numeric value',
       file(GENERAL, '2 2 1', '1 1 abc'),
       3,
       'bad-value',
       "value 'abc' is not a number",
-    );
-  });
-
-  it('a hexadecimal value (strtod would take it; the format is decimal)', () => {
-    expectRejected(
+    ],
+    [
+      'a hexadecimal value (strtod would take it; the format is decimal)',
       file(GENERAL, '2 2 1', '1 1 0x1p3'),
       3,
       'bad-value',
       "value '0x1p3' is not a number",
-    );
-  });
-
-  it('a Fortran D exponent', () => {
-    expectRejected(
+    ],
+    [
+      'a Fortran D exponent',
       file(GENERAL, '2 2 1', '1 1 1.0D+00'),
       3,
       'bad-value',
       "value '1.0D+00' is not a number",
-    );
-  });
-
-  it('a NaN value', () => {
-    expectRejected(
+    ],
+    [
+      'a NaN value',
       file(GENERAL, '2 2 1', '1 1 NaN'),
       3,
       'not-finite',
       "value 'NaN' is NaN, which is not allowed",
-    );
-  });
-
-  it('an infinite value', () => {
-    expectRejected(
+    ],
+    [
+      'an infinite value',
       file(GENERAL, '2 2 1', '2 2 -inf'),
       3,
       'not-finite',
       "value '-inf' is Infinity, which is not allowed",
-    );
-  });
-
-  it('a value that overflows to Infinity', () => {
-    expectRejected(
+    ],
+    [
+      'a value that overflows to Infinity',
       file(GENERAL, '2 2 1', '2 1 1e400'),
       3,
       'not-finite',
       'value 1e400 overflows to Infinity',
-    );
-  });
-
-  it('a non-integer value in an integer file', () => {
-    expectRejected(
+    ],
+    [
+      'a non-integer value in an integer file',
       file('%%MatrixMarket matrix coordinate integer general', '2 2 1', '1 1 2.5'),
       3,
       'not-integer',
       'value 2.5 is not an integer, but the field is integer',
-    );
-  });
-
-  it('an integer value a double cannot hold exactly', () => {
-    expectRejected(
+    ],
+    [
+      'an integer value a double cannot hold exactly',
       file('%%MatrixMarket matrix array integer general', '1 1', '9007199254740993'),
       3,
       'not-integer',
       'integer value 9007199254740993 is too large to hold exactly (limit 2^53 - 1)',
-    );
-  });
-
-  it('a duplicated coordinate entry, naming the line it repeats', () => {
-    expectRejected(
+    ],
+    [
+      'a duplicated coordinate entry, naming the line it repeats',
       file(GENERAL, '3 3 3', '1 1 1', '2 3 5', '2 3 5'),
       5,
       'duplicate-entry',
       'entry (2, 3) repeats line 4',
-    );
-  });
-
-  it('an upper-triangle entry in a symmetric file', () => {
-    expectRejected(
+    ],
+    [
+      'an upper-triangle entry in a symmetric file',
       file(SYMMETRIC, '3 3 2', '2 1 1', '1 3 4'),
       4,
       'upper-triangle-entry',
       'entry (1, 3) is above the diagonal; a symmetric file gives only entries with row ≥ column',
-    );
-  });
-
-  it('a diagonal entry in a skew-symmetric file', () => {
-    expectRejected(
+    ],
+    [
+      'a diagonal entry in a skew-symmetric file',
       file(SKEW, '3 3 2', '2 1 1', '2 2 0'),
       4,
       'skew-diagonal-entry',
       'diagonal entry (2, 2) in a skew-symmetric file; the diagonal is zero and must be omitted',
-    );
-  });
-
-  it('an upper-triangle entry in a skew-symmetric file', () => {
-    expectRejected(
+    ],
+    [
+      'an upper-triangle entry in a skew-symmetric file',
       file(SKEW, '3 3 1', '1 2 1'),
       3,
       'upper-triangle-entry',
       'entry (1, 2) is above the diagonal; a skew-symmetric file gives only entries with row > column',
-    );
-  });
+    ],
+  ])('%s', expectCase);
 });
 
 describe('parseMatrixMarket rejects: text', () => {
-  it('a line longer than maxLineLength', () => {
-    expectRejected(
+  it.each<RejectCase>([
+    [
+      'a line longer than maxLineLength',
       file(GENERAL, '% ' + 'x'.repeat(1100), '1 1 1', '1 1 1'),
       2,
       'line-too-long',
       'line is 1102 characters long; the limit is 1024',
-    );
-  });
-
-  it('a file larger than maxBytes, naming the line where the limit is crossed', () => {
-    expectRejected(
+    ],
+    [
+      'a file larger than maxBytes, naming the line where the limit is crossed',
       file(GENERAL, '2 2 1', '1 1 1'),
       2,
       'file-too-large',
       'the file exceeds the limit of 50 bytes',
       { maxBytes: 50 },
-    );
-  });
-
-  it('a NUL character', () => {
-    expectRejected(
+    ],
+    [
+      'a NUL character',
       file(GENERAL, '1 1 1', '1 1 1\u0000'),
       3,
       'bad-character',
       'NUL character (U+0000) is not allowed',
-    );
-  });
-
-  it('a control character', () => {
-    expectRejected(
+    ],
+    [
+      'a control character',
       file(GENERAL, '% bell \u0007', '1 1 1', '1 1 1'),
       2,
       'bad-character',
       'control character U+0007 is not allowed',
-    );
-  });
-
-  it('a bare carriage return (old Mac line endings)', () => {
-    expectRejected(
+    ],
+    [
+      'a bare carriage return (old Mac line endings)',
       `${GENERAL}\r1 1 1\r1 1 1\r`,
       1,
       'bad-character',
       'carriage return not followed by a line feed',
-    );
-  });
-
-  it('an unpaired surrogate (no valid UTF-8 decodes to one)', () => {
-    expectRejected(
+    ],
+    [
+      'an unpaired surrogate (no valid UTF-8 decodes to one)',
       file(GENERAL, '% \uD800', '1 1 1', '1 1 1'),
       2,
       'invalid-utf8',
       'unpaired surrogate U+D800 is not valid UTF-8',
-    );
-  });
+    ],
+  ])('%s', expectCase);
 });
 
 describe('parseMatrixMarket: arguments', () => {

@@ -5,8 +5,9 @@ import { parseMatrixMarket } from '@sandbox/matrix-market/read.ts';
 const fixture = (name: string): string =>
   readFileSync(new URL(`../../../fixtures/matrix-market/${name}`, import.meta.url), 'utf8');
 
-/** Row-major data of a matrix given as rows, for comparing with `parsed.data`. */
-const dense = (rows: number[][]): number[] => rows.flat();
+/** Expects the parsed dense data to be the matrix given by its rows (row-major). */
+const expectRows = ({ data }: { data: Float64Array }, rows: number[][]): void =>
+  expect(Array.from(data)).toEqual(rows.flat());
 
 describe('parseMatrixMarket: check values from numerics-references.md §7 / §11', () => {
   // References §11 row 45: NISTIR 5935 §3.2 (lower triangle column by column); SciPy's
@@ -15,26 +16,22 @@ describe('parseMatrixMarket: check values from numerics-references.md §7 / §11
     const p = parseMatrixMarket(
       '%%MatrixMarket matrix array real symmetric\n3 3\n4\n1\n2\n5\n3\n6\n',
     );
-    expect(Array.from(p.data)).toEqual(
-      dense([
-        [4, 1, 2],
-        [1, 5, 3],
-        [2, 3, 6],
-      ]),
-    );
+    expectRows(p, [
+      [4, 1, 2],
+      [1, 5, 3],
+      [2, 3, 6],
+    ]);
     expect(p.entries).toBe(6);
   });
 
   // References §11 row 46: skew-symmetric array stores the strictly lower triangle; a_ji = −a_ij.
   it('reads an array real skew-symmetric file (strict lower triangle, negated mirror)', () => {
     const p = parseMatrixMarket('%%MatrixMarket matrix array real skew-symmetric\n3 3\n1\n2\n3\n');
-    expect(Array.from(p.data)).toEqual(
-      dense([
-        [0, -1, -2],
-        [1, 0, -3],
-        [2, 3, 0],
-      ]),
-    );
+    expectRows(p, [
+      [0, -1, -2],
+      [1, 0, -3],
+      [2, 3, 0],
+    ]);
     expect(p.entries).toBe(3);
   });
 
@@ -50,13 +47,11 @@ describe('parseMatrixMarket: check values from numerics-references.md §7 / §11
       '3 3 2',
     ].join('\n');
     const p = parseMatrixMarket(text);
-    expect(Array.from(p.data)).toEqual(
-      dense([
-        [2, -1, 0],
-        [-1, 2, -1],
-        [0, -1, 2],
-      ]),
-    );
+    expectRows(p, [
+      [2, -1, 0],
+      [-1, 2, -1],
+      [0, -1, 2],
+    ]);
     expect(p).toMatchObject({ m: 3, n: 3, entries: 5, symmetry: 'symmetric' });
   });
 
@@ -65,12 +60,10 @@ describe('parseMatrixMarket: check values from numerics-references.md §7 / §11
     const p = parseMatrixMarket(
       '%%MatrixMarket matrix array real general\n2 3\n1\n4\n2\n5\n3\n6\n',
     );
-    expect(Array.from(p.data)).toEqual(
-      dense([
-        [1, 2, 3],
-        [4, 5, 6],
-      ]),
-    );
+    expectRows(p, [
+      [1, 2, 3],
+      [4, 5, 6],
+    ]);
     expect(p).toMatchObject({ m: 2, n: 3, entries: 6, format: 'array' });
   });
 
@@ -79,12 +72,10 @@ describe('parseMatrixMarket: check values from numerics-references.md §7 / §11
     const p = parseMatrixMarket(
       '%%MatrixMarket matrix coordinate pattern general\n2 2 2\n1 2\n2 1\n',
     );
-    expect(Array.from(p.data)).toEqual(
-      dense([
-        [0, 1],
-        [1, 0],
-      ]),
-    );
+    expectRows(p, [
+      [0, 1],
+      [1, 0],
+    ]);
     expect(p.field).toBe('pattern');
   });
 });
@@ -95,15 +86,13 @@ describe('parseMatrixMarket: files shaped like the spec', () => {
   it('reads the coordinate real general 5×5 fixture with 8 entries', () => {
     const p = parseMatrixMarket(fixture('general-5x5.mtx'));
     expect(p).toMatchObject({ m: 5, n: 5, entries: 8, format: 'coordinate', field: 'real' });
-    expect(Array.from(p.data)).toEqual(
-      dense([
-        [4, 0, 0, 0, 30],
-        [0, -7.25, 0, -0.0015, 0],
-        [0, 0, 0.125, 0, 0],
-        [0, 62.5, 0, 0, 0],
-        [-9, 0, 0, 0, 0.01],
-      ]),
-    );
+    expectRows(p, [
+      [4, 0, 0, 0, 30],
+      [0, -7.25, 0, -0.0015, 0],
+      [0, 0, 0.125, 0, 0],
+      [0, 62.5, 0, 0, 0],
+      [-9, 0, 0, 0, 0.01],
+    ]);
     expect(p.comments).toHaveLength(5);
     expect(p.comments[1]).toBe("Invented 5x5 test matrix for Stablehand's reader, shaped like the");
   });
@@ -111,40 +100,34 @@ describe('parseMatrixMarket: files shaped like the spec', () => {
   // Invented fixture: pattern + symmetric mirrors each off-diagonal position (NISTIR 5935 §3.1).
   it('expands a pattern symmetric fixture', () => {
     const p = parseMatrixMarket(fixture('pattern-symmetric-4x4.mtx'));
-    expect(Array.from(p.data)).toEqual(
-      dense([
-        [0, 1, 0, 1],
-        [1, 0, 1, 0],
-        [0, 1, 1, 1],
-        [1, 0, 1, 0],
-      ]),
-    );
+    expectRows(p, [
+      [0, 1, 0, 1],
+      [1, 0, 1, 0],
+      [0, 1, 1, 1],
+      [1, 0, 1, 0],
+    ]);
     expect(p.entries).toBe(5);
   });
 
   // Skew-symmetric coordinate: a_ji = −a_ij, diagonal zero (NISTIR 5935 §3.1); invented values.
   it('expands a coordinate skew-symmetric file', () => {
     const text = '%%MatrixMarket matrix coordinate real skew-symmetric\n3 3 2\n2 1 1.5\n3 1 -4\n';
-    expect(Array.from(parseMatrixMarket(text).data)).toEqual(
-      dense([
-        [0, -1.5, 4],
-        [1.5, 0, 0],
-        [-4, 0, 0],
-      ]),
-    );
+    expectRows(parseMatrixMarket(text), [
+      [0, -1.5, 4],
+      [1.5, 0, 0],
+      [-4, 0, 0],
+    ]);
   });
 
   // Skew-symmetric array of order 4: column 1 rows 2..4, column 2 rows 3..4, column 3 row 4.
   it('fills a 4×4 skew-symmetric array column by column below the diagonal', () => {
     const text = '%%MatrixMarket matrix array integer skew-symmetric\n4 4\n1\n2\n3\n4\n5\n6\n';
-    expect(Array.from(parseMatrixMarket(text).data)).toEqual(
-      dense([
-        [0, -1, -2, -3],
-        [1, 0, -4, -5],
-        [2, 4, 0, -6],
-        [3, 5, 6, 0],
-      ]),
-    );
+    expectRows(parseMatrixMarket(text), [
+      [0, -1, -2, -3],
+      [1, 0, -4, -5],
+      [2, 4, 0, -6],
+      [3, 5, 6, 0],
+    ]);
   });
 
   it('reads an integer field exactly, including 2^53 − 1 (ECMA-262 Number.MAX_SAFE_INTEGER)', () => {

@@ -1,22 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { parseMatrixMarket } from '@sandbox/matrix-market/read.ts';
 import { writeMatrixMarket } from '@sandbox/matrix-market/write.ts';
-
-/**
- * Seeded xorshift32 (G. Marsaglia, "Xorshift RNGs", J. Statistical Software 8(14), 2003;
- * shifts 13, 17, 5 from memory), giving uniform doubles in [0, 1).
- */
-function xorshift32(seed: number): () => number {
-  let s = seed >>> 0 || 1;
-  return () => {
-    s ^= s << 13;
-    s >>>= 0;
-    s ^= s >>> 17;
-    s ^= s << 5;
-    s >>>= 0;
-    return s / 2 ** 32;
-  };
-}
+import { mulberry32 } from '@tests/helpers/seeded-random.ts';
 
 /** The bit patterns of a Float64Array, for exact comparison (−0 and +0 differ). */
 const bits = (a: Float64Array): bigint[] =>
@@ -42,7 +27,7 @@ const HARD = [
 
 /** A random m×n matrix mixing HARD values, random doubles of all magnitudes, zeros and −0. */
 function randomMatrix(m: number, n: number, seed: number): Float64Array {
-  const next = xorshift32(seed);
+  const next = mulberry32(seed);
   const a = new Float64Array(m * n);
   for (let k = 0; k < a.length; k++) {
     const r = next();
@@ -55,7 +40,7 @@ function randomMatrix(m: number, n: number, seed: number): Float64Array {
 
 /** Random finite doubles from random 64-bit patterns (every exponent, subnormals included). */
 function randomBitPatterns(count: number, seed: number): Float64Array {
-  const next = xorshift32(seed);
+  const next = mulberry32(seed);
   const words = new Uint32Array(2 * count);
   for (let k = 0; k < words.length; k++) words[k] = Math.floor(next() * 2 ** 32);
   const a = new Float64Array(words.buffer);

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { residualDot2, residualDot3 } from '@sandbox/metrics/accurate-product.ts';
-import { fromDouble, mul, sub, sum, toDouble } from './exact-rational.ts';
-import { seededUniform } from './factor-fixtures.ts';
+import { fromDouble, mul, sub, sum, toNumber } from '@tests/helpers/rational.ts';
+import { seededUniform } from '@tests/helpers/seeded-random.ts';
 
 /** c − Σ x_k·y_k (·d_k) exactly, rounded once at the end. */
 function exactResidual(c: number, x: number[], y: number[], d?: number[]): number {
@@ -9,7 +9,7 @@ function exactResidual(c: number, x: number[], y: number[], d?: number[]): numbe
     const p = mul(fromDouble(xk), fromDouble(y[k]!));
     return d ? mul(p, fromDouble(d[k]!)) : p;
   });
-  return toDouble(sub(fromDouble(c), sum(terms)));
+  return toNumber(sub(fromDouble(c), sum(terms)));
 }
 
 describe('residualDot2', () => {

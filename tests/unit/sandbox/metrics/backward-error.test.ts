@@ -16,10 +16,10 @@ import {
   mul,
   sub,
   sum,
-  toDouble,
+  toNumber,
   UNIT_ROUNDOFF_EXACT,
   ZERO,
-} from './exact-rational.ts';
+} from '@tests/helpers/rational.ts';
 
 /** η, ω and the dget02 ratio of (A, x, b) in exact rationals, from their definitions. */
 function exactErrors(a: ArrayLike<number>, n: number, x: ArrayLike<number>, b: ArrayLike<number>) {
@@ -44,7 +44,7 @@ function exactErrors(a: ArrayLike<number>, n: number, x: ArrayLike<number>, b: A
   }
   const eta = div(normInfVec(r), add(mul(normInfA, normInfVec(X)), normInfVec(B)));
   const ratio = div(norm1Vec(r), mul(mul(norm1A, norm1Vec(X)), UNIT_ROUNDOFF_EXACT));
-  return { eta: toDouble(eta), omega: toDouble(omega), ratio: toDouble(ratio) };
+  return { eta: toNumber(eta), omega: toNumber(omega), ratio: toNumber(ratio) };
 }
 
 function relErr(got: number, want: number): number {

@@ -14,19 +14,13 @@ import {
   rational,
   sub,
   sum,
-  toDouble,
+  toNumber,
   UNIT_ROUNDOFF_EXACT,
   ZERO,
-} from './exact-rational.ts';
-import {
-  choleskyDouble,
-  gepp,
-  luNoPivot,
-  matmul,
-  randomMatrix,
-  randomSpd,
-  transpose,
-} from './factor-fixtures.ts';
+} from '@tests/helpers/rational.ts';
+import { matmul, transpose } from '@tests/helpers/dense-matrix.ts';
+import { cholesky, gepp, luNoPivot } from '@tests/helpers/factorizations.ts';
+import { randomMatrix, randomSpd } from '@tests/helpers/test-matrices.ts';
 
 /** γ_n = nu/(1 − nu) exactly (Higham, ASNA 2nd ed., §3.1, from memory). */
 function gammaExact(n: number): Rational {
@@ -59,7 +53,7 @@ function exactLuBoundRatio(
       if (absProd.num === 0n) return Infinity;
       worst = max(worst, div(r, mul(g, absProd)));
     }
-  return toDouble(worst);
+  return toNumber(worst);
 }
 
 describe('luComponentwiseBoundRatio', () => {
@@ -89,7 +83,7 @@ describe('luComponentwiseBoundRatio', () => {
     // Without pivoting [[1e-20, 1], [1, 1]] has a huge normwise ratio (2^51) yet stays within
     // Thm 9.3's componentwise bound, which holds for any computed LU, pivoted or not.
     const a = Float64Array.of(1e-20, 1, 1, 1);
-    const lu = luNoPivot(a, 2);
+    const { lu } = luNoPivot(a, 2);
     const want = exactLuBoundRatio(a, 2, lu);
     expect(want).toBeLessThanOrEqual(1);
     const got = luComponentwiseBoundRatio(a, 2, lu, undefined, luResidual(a, 2, lu));
@@ -128,7 +122,7 @@ describe('choleskyComponentwiseBoundRatio', () => {
       [40, 12],
     ] as const) {
       const a = randomSpd(n, seed);
-      const ratio = choleskyComponentwiseBoundRatio(a, n, choleskyDouble(a, n));
+      const ratio = choleskyComponentwiseBoundRatio(a, n, cholesky(a, n).l);
       expect(ratio).toBeGreaterThan(0);
       expect(ratio).toBeLessThanOrEqual(1);
     }
@@ -142,7 +136,7 @@ describe('choleskyComponentwiseBoundRatio', () => {
     const l22 = fromDouble(lp[3]!);
     const sq = mul(l22, l22);
     const r = abs(sub(rational(10n), sum([rational(1n), sq])));
-    const want = toDouble(div(r, mul(gammaExact(3), sum([rational(1n), sq]))));
+    const want = toNumber(div(r, mul(gammaExact(3), sum([rational(1n), sq]))));
     const got = choleskyComponentwiseBoundRatio(a, 2, lp);
     expect(Math.abs(got - want) / want).toBeLessThan(1e-12);
     expect(choleskyComponentwiseBoundRatio(a, 2, l)).toBe(0);

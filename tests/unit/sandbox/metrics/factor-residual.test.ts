@@ -11,37 +11,19 @@ import {
   type Rational,
   div,
   fromDouble,
-  matmulExact,
+  fromDoubles,
+  matMulExact,
   mul,
   norm1Exact,
   rational,
   sub,
   sum,
-  toDouble,
+  toNumber,
   UNIT_ROUNDOFF_EXACT,
-} from './exact-rational.ts';
-import { gepp, luNoPivot, matmul, transpose, worstGrowthMatrix } from './factor-fixtures.ts';
-
-/** Unpacks lu into dense unit-lower L and upper U. */
-function unpack(lu: ArrayLike<number>, n: number): { l: Float64Array; u: Float64Array } {
-  const l = new Float64Array(n * n);
-  const u = new Float64Array(n * n);
-  for (let i = 0; i < n; i++)
-    for (let j = 0; j < n; j++) {
-      if (j < i) l[i * n + j] = lu[i * n + j]!;
-      else u[i * n + j] = lu[i * n + j]!;
-      if (i === j) l[i * n + i] = 1;
-    }
-  return { l, u };
-}
-
-/** Packs unit-lower L and upper U into one array. */
-function pack(l: ArrayLike<number>, u: ArrayLike<number>, n: number): Float64Array {
-  const lu = new Float64Array(n * n);
-  for (let i = 0; i < n; i++)
-    for (let j = 0; j < n; j++) lu[i * n + j] = j < i ? l[i * n + j]! : u[i * n + j]!;
-  return lu;
-}
+} from '@tests/helpers/rational.ts';
+import { packLu, permuteRows, matmul, transpose, unpackLu } from '@tests/helpers/dense-matrix.ts';
+import { gepp, luNoPivot } from '@tests/helpers/factorizations.ts';
+import { hadamard4, worstGrowthMatrix } from '@tests/helpers/test-matrices.ts';
 
 /** ‖M − product‖₁ / (k·‖M‖₁·u) in exact rational arithmetic (the LAPACK dget01 formula). */
 function exactRatio(
@@ -53,15 +35,8 @@ function exactRatio(
 ) {
   const r = product.map((p, idx) => sub(fromDouble(m[idx]!), p));
   const normR = norm1Exact(r, rows, cols);
-  const normM = norm1Exact(Array.from(m, fromDouble), rows, cols);
-  return toDouble(div(normR, mul(mul(rational(BigInt(k)), normM), UNIT_ROUNDOFF_EXACT)));
-}
-
-/** Row i of PA = row perm[i] of A. */
-function permuteRows(a: ArrayLike<number>, perm: ArrayLike<number>, n: number): Float64Array {
-  const pa = new Float64Array(n * n);
-  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) pa[i * n + j] = a[perm[i]! * n + j]!;
-  return pa;
+  const normM = norm1Exact(fromDoubles(m), rows, cols);
+  return toNumber(div(normR, mul(mul(rational(BigInt(k)), normM), UNIT_ROUNDOFF_EXACT)));
 }
 
 // Invented integer factors: L unit lower, U upper, perm a 3-cycle.
@@ -80,12 +55,12 @@ describe('luFactorRatio', () => {
   it('is 0 for exact integer factors, with and without a permutation', () => {
     // Exact by construction: PA = LU holds in integer arithmetic.
     const a = matrixFromFactors();
-    expect(luFactorRatio(a, 3, pack(L3, U3, 3), PERM3)).toBe(0);
-    expect(luFactorRatio(matmul(L3, U3, 3, 3, 3), 3, pack(L3, U3, 3))).toBe(0);
+    expect(luFactorRatio(a, 3, packLu(L3, U3, 3), PERM3)).toBe(0);
+    expect(luFactorRatio(matmul(L3, U3, 3, 3, 3), 3, packLu(L3, U3, 3))).toBe(0);
     // numerics-references §4.12 / §11 row 38: GEPP of [[1,1,1],[1,1,2],[1,2,2]] swaps rows 2, 3,
     // L = [[1,0,0],[1,1,0],[1,0,1]], U = [[1,1,1],[0,1,1],[0,0,1]] exactly.
     const b = Float64Array.of(1, 1, 1, 1, 1, 2, 1, 2, 2);
-    const lu = pack(
+    const lu = packLu(
       Float64Array.of(1, 0, 0, 1, 1, 0, 1, 0, 1),
       Float64Array.of(1, 1, 1, 0, 1, 1, 0, 0, 1),
       3,
@@ -100,8 +75,14 @@ describe('luFactorRatio', () => {
     const u = Float64Array.from(U3);
     l[2 * 3 + 1] = 3 + 0.1; // a decimal perturbation: 0.1 is not dyadic
     u[1 * 3 + 2] = 2 - 2 ** -40;
-    const got = luFactorRatio(a, 3, pack(l, u, 3), PERM3);
-    const want = exactRatio(permuteRows(a, PERM3, 3), matmulExact(l, u, 3, 3, 3), 3, 3, 3);
+    const got = luFactorRatio(a, 3, packLu(l, u, 3), PERM3);
+    const want = exactRatio(
+      permuteRows(a, PERM3, 3),
+      matMulExact(fromDoubles(l), fromDoubles(u), 3, 3, 3),
+      3,
+      3,
+      3,
+    );
     expect(want).toBeGreaterThan(1);
     expect(Math.abs(got - want) / want).toBeLessThan(1e-13);
   });
@@ -110,12 +91,12 @@ describe('luFactorRatio', () => {
     const a = matrixFromFactors();
     const l = Float64Array.from(L3);
     l[2 * 3 + 1] = 3.1;
-    const base = luFactorRatio(a, 3, pack(l, U3, 3), PERM3);
+    const base = luFactorRatio(a, 3, packLu(l, U3, 3), PERM3);
     for (const s of [2 ** 1000, 2 ** -1000]) {
       const as = a.map((v) => v * s);
       const us = U3.map((v) => v * s);
-      expect(luFactorRatio(as, 3, pack(L3, us, 3), PERM3)).toBe(0);
-      expect(luFactorRatio(as, 3, pack(l, us, 3), PERM3)).toBe(base);
+      expect(luFactorRatio(as, 3, packLu(L3, us, 3), PERM3)).toBe(0);
+      expect(luFactorRatio(as, 3, packLu(l, us, 3), PERM3)).toBe(base);
     }
   });
 
@@ -134,7 +115,7 @@ describe('luFactorRatio', () => {
       u[i * n + i] = 1;
       u[i * n + n - 1] = 2 ** i;
     }
-    const lu = pack(l, u, n);
+    const lu = packLu(l, u, n);
     expect(gepp(a, n).lu).toEqual(lu); // the test's own GEPP agrees: these are GEPP's factors
     expect(luFactorRatio(a, n, lu)).toBeLessThan(1);
     // The naive check: L·U in double (inner products in order k = 0, 1, …), minus A.
@@ -160,12 +141,18 @@ describe('luFactorRatio', () => {
   it('[[1e-20, 1], [1, 1]]: no pivoting gives 2^51, partial pivoting ~0', () => {
     // numerics-references §4.12 / §11 row 39: GET01-style ratio 2^51 without pivoting.
     const a = Float64Array.of(1e-20, 1, 1, 1);
-    expect(luFactorRatio(a, 2, luNoPivot(a, 2))).toBe(2 ** 51);
+    expect(luFactorRatio(a, 2, luNoPivot(a, 2).lu)).toBe(2 ** 51);
     // With pivoting the table's 0 is the double-evaluated ratio; the exact residual is
     // (PA − LU)_22 = 1 − (1e-20·1 + 1) = −1e-20, so the accurate ratio is 1e-20/(2·2·u).
     const { lu, perm } = gepp(a, 2);
-    const { l, u } = unpack(lu, 2);
-    const want = exactRatio(permuteRows(a, perm, 2), matmulExact(l, u, 2, 2, 2), 2, 2, 2);
+    const { l, u } = unpackLu(lu, 2);
+    const want = exactRatio(
+      permuteRows(a, perm, 2),
+      matMulExact(fromDoubles(l), fromDoubles(u), 2, 2, 2),
+      2,
+      2,
+      2,
+    );
     expect(want).toBeCloseTo(1e-20 / (4 * UNIT_ROUNDOFF), 20);
     expect(Math.abs(luFactorRatio(a, 2, lu, perm) - want) / want).toBeLessThan(1e-13);
     expect(luFactorRatio(a, 2, lu, perm)).toBeLessThan(1e-4);
@@ -181,9 +168,9 @@ describe('luFactorRatio', () => {
   it('reports NaN, Infinity and overflowing factors as Infinity, never NaN', () => {
     const a = matrixFromFactors();
     for (const bad of [NaN, Infinity, -Infinity, 1e308]) {
-      const lu = pack(L3, U3, 3);
+      const lu = packLu(L3, U3, 3);
       lu[4] = bad;
-      const lu2 = pack(L3, U3, 3);
+      const lu2 = packLu(L3, U3, 3);
       lu2[3] = bad; // an entry of L
       for (const f of [lu, lu2]) {
         const r = luFactorRatio(a, 3, f, PERM3);
@@ -197,14 +184,14 @@ describe('luFactorRatio', () => {
     const a = matrixFromFactors();
     const u = Float64Array.from(U3);
     u[0] = 2.5; // (LU)_00 grows by 0.5, so (PA − LU)_00 = −0.5 and (PA − LU)_i0 = −0.5·l_i0
-    const res = luResidual(a, 3, pack(L3, u, 3), PERM3);
+    const res = luResidual(a, 3, packLu(L3, u, 3), PERM3);
     expect(Array.from(res.r, (v) => v / res.scale)).toEqual([-0.5, 0, 0, -1, 0, 0, 0.5, 0, 0]);
   });
 
   it('rejects malformed arguments with RangeError', () => {
     const a = matrixFromFactors();
     expect(() => luFactorRatio(a, 3, new Float64Array(8))).toThrow(RangeError);
-    expect(() => luFactorRatio(a, 3, pack(L3, U3, 3), Int32Array.of(0, 0, 1))).toThrow(/perm/);
+    expect(() => luFactorRatio(a, 3, packLu(L3, U3, 3), Int32Array.of(0, 0, 1))).toThrow(/perm/);
     expect(() => luFactorRatio(a, -1, a)).toThrow(RangeError);
   });
 });
@@ -239,7 +226,13 @@ describe('choleskyFactorRatio', () => {
     const a = matmul(l, transpose(l, 3, 3), 3, 3, 3);
     const lp = Float64Array.from(l);
     lp[1 * 3 + 0] = 1 + 1e-9;
-    const want = exactRatio(a, matmulExact(lp, transpose(lp, 3, 3), 3, 3, 3), 3, 3, 3);
+    const want = exactRatio(
+      a,
+      matMulExact(fromDoubles(lp), fromDoubles(transpose(lp, 3, 3)), 3, 3, 3),
+      3,
+      3,
+      3,
+    );
     lp[0 * 3 + 2] = 99; // above the diagonal: ignored by the contract
     const aUpperJunk = Float64Array.from(a);
     aUpperJunk[0 * 3 + 1] = -7; // dpot01 reads only the stored (lower) triangle of A
@@ -273,25 +266,7 @@ describe('ldltFactorRatio', () => {
 });
 
 describe('qrFactorRatio', () => {
-  // The normalised 4×4 Hadamard matrix: orthogonal with entries ±1/2, exact in binary.
-  const H = Float64Array.of(
-    0.5,
-    0.5,
-    0.5,
-    0.5,
-    0.5,
-    0.5,
-    -0.5,
-    -0.5,
-    0.5,
-    -0.5,
-    0.5,
-    -0.5,
-    0.5,
-    -0.5,
-    -0.5,
-    0.5,
-  );
+  const H = hadamard4();
 
   it('is 0 for exact thin and square factors', () => {
     const r = Float64Array.of(2, 4, -6, 8, 0, 2, 4, -2, 0, 0, 6, 2, 0, 0, 0, 4);
@@ -306,7 +281,7 @@ describe('qrFactorRatio', () => {
     const a = matmul(H, r, 4, 4, 4);
     const q = Float64Array.from(H);
     q[5] = 0.5 + 3e-12;
-    const want = exactRatio(a, matmulExact(q, r, 4, 4, 4), 4, 4, 4);
+    const want = exactRatio(a, matMulExact(fromDoubles(q), fromDoubles(r), 4, 4, 4), 4, 4, 4);
     const rJunk = Float64Array.from(r);
     rJunk[4] = 123; // below the diagonal of R: ignored
     const got = qrFactorRatio(a, 4, 4, q, rJunk);

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { ldltGrowthFactor, luGrowthFactor } from '@sandbox/metrics/growth-factor.ts';
-import { gepp, luNoPivot, worstGrowthMatrix } from './factor-fixtures.ts';
+import { gepp, luNoPivot } from '@tests/helpers/factorizations.ts';
+import { worstGrowthMatrix } from '@tests/helpers/test-matrices.ts';
 
 describe('luGrowthFactor', () => {
   it('is 2^(n−1) for the worst-growth matrix under GEPP with the first-maximum tie rule', () => {
@@ -33,7 +34,7 @@ describe('luGrowthFactor', () => {
     // Hand value: A = [[1e-20, 1], [1, 1]] without pivoting has U = [[1e-20, 1], [0, 1 − 1e20]],
     // so max|U| / max|A| = fl(1 − 1e20) in magnitude = 1e20 (numerics-references §4.12).
     const a = Float64Array.of(1e-20, 1, 1, 1);
-    expect(luGrowthFactor(a, 2, luNoPivot(a, 2))).toBe(1e20);
+    expect(luGrowthFactor(a, 2, luNoPivot(a, 2).lu)).toBe(1e20);
     expect(luGrowthFactor(Float64Array.of(2, 0, 0, 4), 2, Float64Array.of(2, 0, 1e9, 4))).toBe(1);
     // Conventions of growth-factor.ts: 0/0 := 1, nonzero/0 := ∞, NaN := ∞.
     expect(luGrowthFactor(new Float64Array(4), 2, new Float64Array(4))).toBe(1);
@@ -56,7 +57,7 @@ describe('ldltGrowthFactor', () => {
     const l = Float64Array.of(1, 0, 0, 0.5, 1, 0, 0.5, 0.5, 1);
     const d = Float64Array.of(4, 4, 4);
     expect(ldltGrowthFactor(a, 3, l, d)).toBe(4 / 6);
-    expect(luGrowthFactor(a, 3, luNoPivot(a, 3))).toBe(4 / 6);
+    expect(luGrowthFactor(a, 3, luNoPivot(a, 3).lu)).toBe(4 / 6);
   });
 
   it('sees growth in the off-diagonal entries d_k·l_jk, not only in D', () => {

@@ -10,10 +10,11 @@ import {
   rational,
   sub,
   sum,
-  toDouble,
+  toNumber,
   UNIT_ROUNDOFF_EXACT,
   ZERO,
-} from './exact-rational.ts';
+} from '@tests/helpers/rational.ts';
+import { hadamard4 } from '@tests/helpers/test-matrices.ts';
 
 /** ‖I − QᵀQ‖₁ / (max(1, m)·u) in exact rationals (LAPACK dqrt01/dqrt02 formula). */
 function exactOrthogonality(q: ArrayLike<number>, m: number, n: number): number {
@@ -30,28 +31,10 @@ function exactOrthogonality(q: ArrayLike<number>, m: number, n: number): number 
   let norm = ZERO;
   for (let j = 0; j < n; j++)
     norm = max(norm, sum(Array.from({ length: n }, (_, i) => abs(e[i * n + j]!))));
-  return toDouble(div(norm, mul(rational(BigInt(Math.max(1, m))), UNIT_ROUNDOFF_EXACT)));
+  return toNumber(div(norm, mul(rational(BigInt(Math.max(1, m))), UNIT_ROUNDOFF_EXACT)));
 }
 
-// The normalised 4×4 Hadamard matrix: orthogonal with entries ±1/2, exact in binary.
-const H = Float64Array.of(
-  0.5,
-  0.5,
-  0.5,
-  0.5,
-  0.5,
-  0.5,
-  -0.5,
-  -0.5,
-  0.5,
-  -0.5,
-  0.5,
-  -0.5,
-  0.5,
-  -0.5,
-  -0.5,
-  0.5,
-);
+const H = hadamard4();
 
 describe('orthogonalityRatio', () => {
   it('is 0 for exactly orthogonal Q: permutation, Hadamard, thin columns', () => {
@@ -74,7 +57,7 @@ describe('orthogonalityRatio', () => {
     const g = Float64Array.of(0.6, -0.8, 0.8, 0.6);
     const c = fromDouble(0.6);
     const s = fromDouble(0.8);
-    const byHand = toDouble(
+    const byHand = toNumber(
       div(
         abs(sub(rational(1n), sum([mul(c, c), mul(s, s)]))),
         mul(rational(2n), UNIT_ROUNDOFF_EXACT),

@@ -3,17 +3,14 @@ import type { RoutineSlug } from '@shared/routines.ts';
 import { backSubstitutionBackwardErrorLimit, passesBound } from '@sandbox/metrics/metric-bounds.ts';
 import type { MetricName } from '@sandbox/metrics/metric-names.ts';
 import { computeMetrics, type MetricsInput } from '@sandbox/metrics/routine-metrics.ts';
+import { matmul } from '@tests/helpers/dense-matrix.ts';
+import { backSubstitute, cholesky, gepp, ldlt, luNoPivot } from '@tests/helpers/factorizations.ts';
 import {
-  backSubstitute,
-  choleskyDouble,
-  gepp,
-  ldltNoPivot,
-  luNoPivot,
-  matmul,
+  hadamard4,
   randomMatrix,
   randomSpd,
   worstGrowthMatrix,
-} from './factor-fixtures.ts';
+} from '@tests/helpers/test-matrices.ts';
 
 const N = 12;
 const SOLVE: MetricName[] = [
@@ -44,25 +41,7 @@ const EXPECTED: Record<RoutineSlug, MetricName[]> = {
   'back-substitution': [...SOLVE, ...FORWARD],
 };
 
-// The normalised 4×4 Hadamard matrix (exactly orthogonal in binary) and an integer R.
-const H = Float64Array.of(
-  0.5,
-  0.5,
-  0.5,
-  0.5,
-  0.5,
-  0.5,
-  -0.5,
-  -0.5,
-  0.5,
-  -0.5,
-  0.5,
-  -0.5,
-  0.5,
-  -0.5,
-  -0.5,
-  0.5,
-);
+// An integer upper triangular R; with the Hadamard matrix as Q, A = QR exactly.
 const R = Float64Array.of(2, 4, -6, 8, 0, 2, 4, -2, 0, 0, 6, 2, 0, 0, 0, 4);
 
 /** A sound kernel's result for each routine, with b = A·x_true and x_ref = x_true. */
@@ -86,23 +65,24 @@ function soundCase(routine: RoutineSlug): MetricsInput {
     }
     case 'lu-no-pivoting': {
       const a = randomSpd(N, 2); // no pivoting is safe on SPD matrices (Higham, ASNA §10.1, from memory)
-      return withRhs(a, { lu: luNoPivot(a, N) });
+      return withRhs(a, { lu: luNoPivot(a, N).lu });
     }
     case 'cholesky': {
       const a = randomSpd(N, 3);
-      return withRhs(a, { l: choleskyDouble(a, N) });
+      return withRhs(a, { l: cholesky(a, N).l });
     }
     case 'ldlt': {
       const a = randomSpd(N, 4);
-      return withRhs(a, ldltNoPivot(a, N));
+      return withRhs(a, ldlt(a, N));
     }
     case 'householder-qr':
+      // Fresh copies: the garbage-factor test overwrites the result's arrays.
       return {
         routine,
-        a: matmul(H, R, 4, 4, 4),
+        a: matmul(hadamard4(), R, 4, 4, 4),
         m: 4,
         n: 4,
-        result: { q: H, r: R },
+        result: { q: hadamard4(), r: Float64Array.from(R) },
         b: new Float64Array(4),
       };
     case 'back-substitution': {

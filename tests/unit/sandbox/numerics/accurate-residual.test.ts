@@ -16,14 +16,10 @@ import {
   sub,
   toNumber,
 } from '@tests/helpers/rational.ts';
+import { seededUniform } from '@tests/helpers/seeded-random.ts';
+import { hilbert } from '@tests/helpers/test-matrices.ts';
 
 const u = UNIT_ROUNDOFF;
-
-function hilbert(n: number): Float64Array {
-  const a = new Float64Array(n * n);
-  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) a[i * n + j] = 1 / (i + j + 1);
-  return a;
-}
 
 /** Exact r = b − A x and the scale (|b| + |A||x|) per row, both as rationals. */
 function exactResidual(a: Float64Array, m: number, n: number, x: Float64Array, b: Float64Array) {
@@ -161,8 +157,7 @@ describe('matVecAccurate', () => {
   });
 
   it('is within u|y| + γ_n²|A||x| of the exact product; returns +0 for 0', () => {
-    let seed = 3;
-    const rand = () => ((seed = (seed * 16807) % 2147483647) / 2147483647) * 2 - 1;
+    const rand = seededUniform(3);
     const m = 6;
     const n = 9;
     const a = Float64Array.from({ length: m * n }, rand);

@@ -19,17 +19,7 @@ import {
   sub,
   toNumber,
 } from '@tests/helpers/rational.ts';
-
-function seeded(seed: number): () => number {
-  let s = seed >>> 0;
-  return () => {
-    s = (s + 0x6d2b79f5) >>> 0;
-    let t = s;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+import { mulberry32 } from '@tests/helpers/seeded-random.ts';
 
 /** A normalised double-double: hi random over exponents ±e, lo a random fraction of ulp(hi)/2. */
 function randomDd(rand: () => number, e: number): [number, number] {
@@ -53,7 +43,7 @@ function expectNormalised([h, l]: [number, number]): void {
 
 describe('fastTwoSum (Dekker 1971)', () => {
   it('is exact when |a| ≥ |b|', () => {
-    const rand = seeded(1);
+    const rand = mulberry32(1);
     for (let k = 0; k < 500; k++) {
       const a = (1 + rand()) * 2 ** 10;
       const b = (2 * rand() - 1) * 2 ** (10 - 60 * rand());
@@ -78,7 +68,7 @@ describe('double-double arithmetic (Dekker 1971; Hida, Li & Bailey 2001)', () =>
   const bound = 4 * U2;
 
   it('ddAdd and ddSub: relative error ≤ 4u² against the exact sum, normalised results', () => {
-    const rand = seeded(2);
+    const rand = mulberry32(2);
     for (let k = 0; k < 1000; k++) {
       const [ah, al] = randomDd(rand, 30);
       const [bh, bl] = randomDd(rand, 30);
@@ -94,7 +84,7 @@ describe('double-double arithmetic (Dekker 1971; Hida, Li & Bailey 2001)', () =>
     // (1 + 2^-60) + (−1 + 2^-70) = 2^-60 + 2^-70 exactly representable as a double-double.
     expect(ddAdd(1, 2 ** -60, -1, 2 ** -70)).toEqual([2 ** -60 + 2 ** -70, 0]);
     // Near-equal operands from random draws: still within the bound.
-    const rand = seeded(3);
+    const rand = mulberry32(3);
     for (let k = 0; k < 300; k++) {
       const [ah, al] = randomDd(rand, 5);
       const [bh, bl] = twoSum(-ah, (2 * rand() - 1) * ah * 2 ** -40);
@@ -104,27 +94,21 @@ describe('double-double arithmetic (Dekker 1971; Hida, Li & Bailey 2001)', () =>
     }
   });
 
-  it('ddMul: relative error ≤ 4u² against the exact product', () => {
-    const rand = seeded(4);
+  it.each([
+    ['ddMul', 'product', ddMul, mul, 4],
+    ['ddDiv', 'quotient', ddDiv, div, 5],
+  ] as const)('%s: relative error ≤ 4u² against the exact %s', (_, __, op, exact, seed) => {
+    const rand = mulberry32(seed);
     for (let k = 0; k < 1000; k++) {
       const [ah, al] = randomDd(rand, 100);
       const [bh, bl] = randomDd(rand, 100);
-      const p = ddMul(ah, al, bh, bl);
-      expect(relativeError(p, mul(value(ah, al), value(bh, bl)))).toBeLessThanOrEqual(bound);
-      expectNormalised(p);
+      const r = op(ah, al, bh, bl);
+      expect(relativeError(r, exact(value(ah, al), value(bh, bl)))).toBeLessThanOrEqual(bound);
+      expectNormalised(r);
     }
   });
 
-  it('ddDiv: relative error ≤ 4u² against the exact quotient', () => {
-    const rand = seeded(5);
-    for (let k = 0; k < 1000; k++) {
-      const [ah, al] = randomDd(rand, 100);
-      const [bh, bl] = randomDd(rand, 100);
-      const q = ddDiv(ah, al, bh, bl);
-      expect(relativeError(q, div(value(ah, al), value(bh, bl)))).toBeLessThanOrEqual(bound);
-      expectNormalised(q);
-    }
-    // 1/3 and 1/10, which no double holds exactly.
+  it('ddDiv: relative error ≤ 4u² for 1/3 and 1/10, which no double holds exactly', () => {
     expect(relativeError(ddDiv(1, 0, 3, 0), { num: 1n, den: 3n })).toBeLessThanOrEqual(bound);
     expect(relativeError(ddDiv(1, 0, 10, 0), { num: 1n, den: 10n })).toBeLessThanOrEqual(bound);
     expect(relativeError(ddDiv(1, 0, 3, 0), { num: 1n, den: 3n })).toBeGreaterThan(0);
@@ -135,7 +119,7 @@ describe('double-double arithmetic (Dekker 1971; Hida, Li & Bailey 2001)', () =>
   });
 
   it('ddSubScaledInPlace equals ddSub(y, ddMul(s, x)) bit for bit, with offsets', () => {
-    const rand = seeded(6);
+    const rand = mulberry32(6);
     const len = 40;
     const yHi = new Float64Array(len + 3);
     const yLo = new Float64Array(len + 3);

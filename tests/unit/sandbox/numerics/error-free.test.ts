@@ -12,18 +12,7 @@ import {
   sub,
   toNumber,
 } from '@tests/helpers/rational.ts';
-
-/** Seeded PRNG (mulberry32, public-domain idiom) returning [0, 1). */
-function seeded(seed: number): () => number {
-  let s = seed >>> 0;
-  return () => {
-    s = (s + 0x6d2b79f5) >>> 0;
-    let t = s;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+import { mulberry32 } from '@tests/helpers/seeded-random.ts';
 
 /** A double with a full 53-bit random significand, random sign and exponent in [−e, e]. */
 function randomDouble(rand: () => number, e: number): number {
@@ -44,6 +33,29 @@ function significantBits(x: number): number {
 
 const exactSum = (a: number, b: number) => add(fromDouble(a), fromDouble(b));
 const exactProduct = (a: number, b: number) => mul(fromDouble(a), fromDouble(b));
+/** Whether the pair (hi, lo) holds exactly the rational value. */
+const holdsExactly = ([hi, lo]: [number, number], value: Rational) =>
+  equals(exactSum(hi, lo), value);
+
+/**
+ * On 3000 seeded random pairs with exponents in ±100 (numerics-references §11 row 42):
+ * transform(a, b) = (fl(a ∘ b), error) with the pair summing exactly to a ∘ b.
+ */
+function expectErrorFreeOnRandomPairs(
+  transform: (a: number, b: number) => [number, number],
+  rounded: (a: number, b: number) => number,
+  exact: (a: number, b: number) => Rational,
+  seed: number,
+): void {
+  const rand = mulberry32(seed);
+  for (let k = 0; k < 3000; k++) {
+    const a = randomDouble(rand, 100);
+    const b = randomDouble(rand, 100);
+    const pair = transform(a, b);
+    expect(pair[0]).toBe(rounded(a, b));
+    expect(holdsExactly(pair, exact(a, b))).toBe(true);
+  }
+}
 
 // Cases chosen to stress the transformations: exact ties, huge exponent gaps, cancellation,
 // the splitter constant itself, values just below powers of two.
@@ -66,15 +78,7 @@ const adversarial: [number, number][] = [
 
 describe('twoSum (Knuth, TAOCP vol. 2, §4.2.2)', () => {
   it('a + b = s + e exactly and s = fl(a + b), on random pairs over exponents ±100', () => {
-    // numerics-references §11 row 42: exact for random pairs with exponents ±100.
-    const rand = seeded(42);
-    for (let k = 0; k < 3000; k++) {
-      const a = randomDouble(rand, 100);
-      const b = randomDouble(rand, 100);
-      const [s, e] = twoSum(a, b);
-      expect(s).toBe(a + b);
-      expect(equals(add(fromDouble(s), fromDouble(e)), exactSum(a, b))).toBe(true);
-    }
+    expectErrorFreeOnRandomPairs(twoSum, (a, b) => a + b, exactSum, 42);
   });
 
   it('is exact on adversarial pairs, both orders', () => {
@@ -83,8 +87,7 @@ describe('twoSum (Knuth, TAOCP vol. 2, §4.2.2)', () => {
         [a, b],
         [b, a],
       ] as const) {
-        const [s, e] = twoSum(p, q);
-        expect(equals(add(fromDouble(s), fromDouble(e)), exactSum(p, q))).toBe(true);
+        expect(holdsExactly(twoSum(p, q), exactSum(p, q))).toBe(true);
       }
     }
     // A tie: 2^53 + 1 rounds to even (2^53), the lost 1 is the error term.
@@ -94,11 +97,11 @@ describe('twoSum (Knuth, TAOCP vol. 2, §4.2.2)', () => {
 
 describe('split (Veltkamp; Dekker 1971)', () => {
   it('a = hi + lo exactly, each part with at most 26 significant bits', () => {
-    const rand = seeded(7);
+    const rand = mulberry32(7);
     for (let k = 0; k < 2000; k++) {
       const a = randomDouble(rand, 300);
       const [hi, lo] = split(a);
-      expect(equals(add(fromDouble(hi), fromDouble(lo)), fromDouble(a))).toBe(true);
+      expect(holdsExactly([hi, lo], fromDouble(a))).toBe(true);
       expect(significantBits(hi)).toBeLessThanOrEqual(26);
       expect(significantBits(lo)).toBeLessThanOrEqual(26);
     }
@@ -109,29 +112,19 @@ describe('split (Veltkamp; Dekker 1971)', () => {
     const [hiBad] = split(1.5 * 2 ** 997);
     expect(Number.isNaN(hiBad)).toBe(true);
     const a = 1.5 * 2 ** 996;
-    const [hi, lo] = split(a);
-    expect(equals(add(fromDouble(hi), fromDouble(lo)), fromDouble(a))).toBe(true);
+    expect(holdsExactly(split(a), fromDouble(a))).toBe(true);
   });
 });
 
 describe('twoProduct (Dekker 1971, mul12)', () => {
   it('a·b = p + e exactly and p = fl(a·b), on random pairs over exponents ±100', () => {
-    // numerics-references §11 row 42.
-    const rand = seeded(4242);
-    for (let k = 0; k < 3000; k++) {
-      const a = randomDouble(rand, 100);
-      const b = randomDouble(rand, 100);
-      const [p, e] = twoProduct(a, b);
-      expect(p).toBe(a * b);
-      expect(equals(add(fromDouble(p), fromDouble(e)), exactProduct(a, b))).toBe(true);
-    }
+    expectErrorFreeOnRandomPairs(twoProduct, (a, b) => a * b, exactProduct, 4242);
   });
 
   it('is exact on adversarial pairs', () => {
     for (const [a, b] of adversarial) {
       if (Math.abs(a * b) > 2 ** 1000 || (a * b !== 0 && Math.abs(a * b) < 2 ** -900)) continue;
-      const [p, e] = twoProduct(a, b);
-      expect(equals(add(fromDouble(p), fromDouble(e)), exactProduct(a, b))).toBe(true);
+      expect(holdsExactly(twoProduct(a, b), exactProduct(a, b))).toBe(true);
     }
     // (1 + 2^-52)² = 1 + 2^-51 + 2^-104: the last term is exactly the error.
     expect(twoProduct(1 + 2 ** -52, 1 + 2 ** -52)).toEqual([1 + 2 ** -51, 2 ** -104]);
@@ -140,8 +133,7 @@ describe('twoProduct (Dekker 1971, mul12)', () => {
   it('is not exact once the product underflows (outside its precondition)', () => {
     // numerics-references §6.1 (computed there): near 2^-540 the error term underflows.
     const a = (1 + 2 ** -52) * 2 ** -540;
-    const [p, e] = twoProduct(a, a);
-    expect(equals(add(fromDouble(p), fromDouble(e)), exactProduct(a, a))).toBe(false);
+    expect(holdsExactly(twoProduct(a, a), exactProduct(a, a))).toBe(false);
   });
 });
 
@@ -183,7 +175,7 @@ function illConditionedDot(n: number, e: number, rand: () => number) {
 describe('dot2 (Ogita, Rump & Oishi 2005, Alg. 5.3)', () => {
   it('meets |res − xᵀy| ≤ u|xᵀy| + γ_n²|x|ᵀ|y| on dot products with condition 1e5 … 1e40', () => {
     // Error bound: Ogita, Rump & Oishi 2005, as quoted in numerics-references §6.1.
-    const rand = seeded(2005);
+    const rand = mulberry32(2005);
     const n = 60;
     const conditions: number[] = [];
     // Exponent spread e gives condition numbers 2·|x|ᵀ|y|/|xᵀy| of roughly 2^(2e).
@@ -202,7 +194,7 @@ describe('dot2 (Ogita, Rump & Oishi 2005, Alg. 5.3)', () => {
   });
 
   it('is far more accurate than plain summation on ill-conditioned cases', () => {
-    const rand = seeded(11);
+    const rand = mulberry32(11);
     const n = 40;
     for (let trial = 0; trial < 5; trial++) {
       const { x, y, exact, absDot } = illConditionedDot(n, 40, rand); // condition about 2^80

@@ -18,14 +18,10 @@ import {
   rational,
   toNumber,
 } from '@tests/helpers/rational.ts';
+import { seededUniform } from '@tests/helpers/seeded-random.ts';
+import { hilbert, worstGrowthMatrix } from '@tests/helpers/test-matrices.ts';
 
 const u = UNIT_ROUNDOFF;
-
-function hilbert(n: number): Float64Array {
-  const a = new Float64Array(n * n);
-  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) a[i * n + j] = 1 / (i + j + 1);
-  return a;
-}
 
 function hilbertExact(n: number): Rational[] {
   const a: Rational[] = [];
@@ -54,14 +50,6 @@ function kahan(n: number, theta: number): Float64Array {
     a[i * n + i] = d;
     for (let j = i + 1; j < n; j++) a[i * n + j] = -c * d;
   }
-  return a;
-}
-
-/** W_n: 1 on the diagonal, −1 below, 1 in the last column. */
-function worstGrowth(n: number): Float64Array {
-  const a = new Float64Array(n * n);
-  for (let i = 0; i < n; i++)
-    for (let j = 0; j < n; j++) a[i * n + j] = i === j || j === n - 1 ? 1 : j < i ? -1 : 0;
   return a;
 }
 
@@ -135,7 +123,7 @@ describe('conditionEstimate1 (Hager 1984; Higham 1988; LAPACK DGECON/DLACN2)', (
     const cases: [Float64Array, number, number][] = [
       [hilbert(6), 6, 2.907028e7],
       [secondDifference(50), 50, 1300],
-      [worstGrowth(20), 20, 20],
+      [worstGrowthMatrix(20), 20, 20],
       [kahan(30, 1.2), 30, 2.879369e5],
     ];
     for (const [a, n, truth] of cases) {
@@ -210,8 +198,7 @@ describe('inverseNorm1Estimate as a general 1-norm estimator', () => {
 
   it('never exceeds ‖B‖₁ and uses at most 11 products, on random matrices', () => {
     // DLACN2: at most ITMAX = 5 iterations of two products, plus the final test vector.
-    let seed = 5;
-    const rand = () => ((seed = (seed * 16807) % 2147483647) / 2147483647) * 2 - 1;
+    const rand = seededUniform(5);
     for (let trial = 0; trial < 20; trial++) {
       const n = 2 + (trial % 9);
       const b = Float64Array.from({ length: n * n }, rand);

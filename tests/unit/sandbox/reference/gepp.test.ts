@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { gamma, UNIT_ROUNDOFF } from '@sandbox/numerics/unit-roundoff.ts';
 import { maxAbs, norm1 } from '@sandbox/numerics/norms.ts';
 import { luFactorPartialPivoting, luSolve, luSolveTransposed } from '@sandbox/reference/gepp.ts';
+import { permuteRows, unpackLu } from '@tests/helpers/dense-matrix.ts';
 import {
   abs,
   div,
@@ -11,26 +12,8 @@ import {
   toNumber,
   type Rational,
 } from '@tests/helpers/rational.ts';
-
-/** Unpacks L (unit lower) and U from the packed factor. */
-function unpack(lu: Float64Array, n: number): { l: Float64Array; u: Float64Array } {
-  const l = new Float64Array(n * n);
-  const u = new Float64Array(n * n);
-  for (let i = 0; i < n; i++)
-    for (let j = 0; j < n; j++) {
-      if (j < i) l[i * n + j] = lu[i * n + j]!;
-      else u[i * n + j] = lu[i * n + j]!;
-      if (i === j) l[i * n + j] = 1;
-    }
-  return { l, u };
-}
-
-/** PA with row i of PA = row perm[i] of A (product.md). */
-function permuteRows(a: ArrayLike<number>, perm: Int32Array, n: number): Float64Array {
-  const pa = new Float64Array(n * n);
-  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) pa[i * n + j] = a[perm[i]! * n + j]!;
-  return pa;
-}
+import { mulberry32 } from '@tests/helpers/seeded-random.ts';
+import { worstGrowthMatrix } from '@tests/helpers/test-matrices.ts';
 
 function factorOk(a: ArrayLike<number>, n: number) {
   const f = luFactorPartialPivoting(a, n);
@@ -40,22 +23,14 @@ function factorOk(a: ArrayLike<number>, n: number) {
 
 /** Exact PA − LU as rationals. */
 function exactResidual(a: ArrayLike<number>, lu: Float64Array, perm: Int32Array, n: number) {
-  const { l, u } = unpack(lu, n);
+  const { l, u } = unpackLu(lu, n);
   const product = matMulExact(fromDoubles(l), fromDoubles(u), n, n, n);
   const pa = fromDoubles(permuteRows(a, perm, n));
   return pa.map((v, k) => sub(v, product[k]!));
 }
 
-/** Worst-growth matrix W_n (GFPP): 1 on the diagonal, −α below it, 1 in the last column. */
-function gfpp(n: number, alpha: number): Float64Array {
-  const a = new Float64Array(n * n);
-  for (let i = 0; i < n; i++)
-    for (let j = 0; j < n; j++) a[i * n + j] = i === j || j === n - 1 ? 1 : j < i ? -alpha : 0;
-  return a;
-}
-
 const growth = (a: Float64Array, lu: Float64Array, n: number) =>
-  maxAbs(unpack(lu, n).u) / maxAbs(a);
+  maxAbs(unpackLu(lu, n).u) / maxAbs(a);
 
 describe('luFactorPartialPivoting', () => {
   it('reproduces factors built by hand exactly, and PA = LU exactly', () => {
@@ -72,13 +47,12 @@ describe('luFactorPartialPivoting', () => {
   it('meets |PA − LU| ≤ γ_n|L||U| exactly on random integer matrices', () => {
     // Higham, ASNA 2nd ed., Thm 9.3 (from memory); numerics-references §11 row 5. The residual
     // is evaluated exactly with rationals, so the bound needs no fudge factor.
-    let seed = 17;
-    const rand = () => (seed = (seed * 16807) % 2147483647);
+    const rand = mulberry32(17);
     for (const n of [3, 5, 8, 12]) {
-      const a = Float64Array.from({ length: n * n }, () => (rand() % 19) - 9);
+      const a = Float64Array.from({ length: n * n }, () => Math.floor(rand() * 19) - 9);
       const f = factorOk(a, n);
       const r = exactResidual(a, f.lu, f.perm, n);
-      const { l, u } = unpack(f.lu, n);
+      const { l, u } = unpackLu(f.lu, n);
       const absLU = matMulExact(
         fromDoubles(l.map(Math.abs)),
         fromDoubles(u.map(Math.abs)),
@@ -108,7 +82,7 @@ describe('luFactorPartialPivoting', () => {
     // numerics-references §11 row 7: 2^(n−1), e.g. 512 (n = 10), 524288 (n = 20);
     // Higham & Higham, SIMAX 10 (1989); Wilkinson's bound for partial pivoting.
     for (const n of [2, 3, 5, 10, 20]) {
-      const a = gfpp(n, 1);
+      const a = worstGrowthMatrix(n, 1);
       const f = factorOk(a, n);
       expect(growth(a, f.lu, n)).toBe(2 ** (n - 1));
       expect(Array.from(f.perm)).toEqual(Array.from({ length: n }, (_, i) => i));
@@ -117,9 +91,9 @@ describe('luFactorPartialPivoting', () => {
 
   it('the −0.5 variant grows as 1.5^(n−1) under any tie rule', () => {
     // numerics-references §11 row 9: 38.443359375 (n = 10), 127834.03948858939 (n = 30).
-    const a10 = gfpp(10, 0.5);
+    const a10 = worstGrowthMatrix(10, 0.5);
     expect(growth(a10, factorOk(a10, 10).lu, 10)).toBe(38.443359375);
-    const a30 = gfpp(30, 0.5);
+    const a30 = worstGrowthMatrix(30, 0.5);
     expect(growth(a30, factorOk(a30, 30).lu, 30)).toBe(127834.03948858939);
   });
 

@@ -18,14 +18,9 @@ import {
   sub,
   toNumber,
 } from '@tests/helpers/rational.ts';
+import { hilbert } from '@tests/helpers/test-matrices.ts';
 
 const u2 = UNIT_ROUNDOFF ** 2;
-
-function hilbert(n: number): Float64Array {
-  const a = new Float64Array(n * n);
-  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) a[i * n + j] = 1 / (i + j + 1);
-  return a;
-}
 
 function factorOk(a: ArrayLike<number>, n: number) {
   const f = luFactorDoubleDouble(a, n);

@@ -15,17 +15,12 @@ import {
   sub,
   toNumber,
 } from '@tests/helpers/rational.ts';
+import { hilbert, worstGrowthMatrix } from '@tests/helpers/test-matrices.ts';
 
 const u = UNIT_ROUNDOFF;
 
 /** The forward-error tolerance where the reference is trusted: 2u (observed up to about 1u). */
 const TOLERANCE = 2 * u;
-
-function hilbert(n: number): Float64Array {
-  const a = new Float64Array(n * n);
-  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) a[i * n + j] = 1 / (i + j + 1);
-  return a;
-}
 
 /** Pascal P_n, p_ij = C(i + j, i) with 0-based indices (numerics-references §4.2). */
 function pascal(n: number): Float64Array {
@@ -33,14 +28,6 @@ function pascal(n: number): Float64Array {
   for (let i = 0; i < n; i++)
     for (let j = 0; j < n; j++)
       a[i * n + j] = i === 0 || j === 0 ? 1 : a[(i - 1) * n + j]! + a[i * n + j - 1]!;
-  return a;
-}
-
-/** W_n: 1 on the diagonal, −1 below, 1 in the last column (numerics-references §3). */
-function worstGrowth(n: number): Float64Array {
-  const a = new Float64Array(n * n);
-  for (let i = 0; i < n; i++)
-    for (let j = 0; j < n; j++) a[i * n + j] = i === j || j === n - 1 ? 1 : j < i ? -1 : 0;
   return a;
 }
 
@@ -165,7 +152,7 @@ describe('referenceSolve against exact rational solutions', () => {
     // numerics-references §11 row 11: with b = W·1, GEPP's solve has ∞-norm error 1.0 for
     // n ≥ 55; κ₁(W_n) = n (row 10), so the reference must be trusted and accurate.
     const n = 60;
-    const a = worstGrowth(n);
+    const a = worstGrowthMatrix(n);
     const b = rhsOnes(a, n);
     const f = luFactorPartialPivoting(a, n);
     if (!f.ok) throw new Error('unexpected zero pivot');

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { hodgesLehmannOneSample, hodgesLehmannTwoSample } from '@sandbox/stats/hodges-lehmann.ts';
-import { mulberry32 } from '@tests/unit/sandbox/stats/seeded-random.ts';
+import { mulberry32 } from '@tests/helpers/seeded-random.ts';
 
 describe('hodgesLehmannTwoSample', () => {
   it('timing example: ratio 1.0629987, 95 % CI [1.0361570, 1.0950888] (§8.5)', () => {

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { flopCount } from '@sandbox/timing/flops.ts';
 import { runInterleavedTiming, type TimingProgress } from '@sandbox/timing/interleaved.ts';
 import type { TimedCall, TimedKernel } from '@sandbox/timing/timed-kernel.ts';
-import { seededNormal } from '@tests/unit/sandbox/stats/seeded-random.ts';
+import { seededNormal } from '@tests/helpers/seeded-random.ts';
 
 /** A fake input: which size and which makeInput call produced it. */
 interface FakeInput {

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { benjaminiHochberg } from '@sandbox/stats/benjamini-hochberg.ts';
 import { median } from '@sandbox/stats/quantiles.ts';
 import { comparePaired, compareTimings, timingVerdict } from '@sandbox/timing/paired-comparison.ts';
-import { seededNormal } from '@tests/unit/sandbox/stats/seeded-random.ts';
+import { seededNormal } from '@tests/helpers/seeded-random.ts';
 
 /**
  * Synthetic paired rounds (no real timing): a per-round machine level drifting slowly and shared by

@@ -1,0 +1,47 @@
+import type PgBoss from 'pg-boss';
+import { runDriftChecks } from '@server/drift/drift-checks.service.ts';
+import { TRIAL_DEAD_JOB, type TrialJobData } from './pg-boss-queue.ts';
+import { runTrialJob, type TrialJobDeps, type TrialJobResult } from './run-trial-job.ts';
+import { markTrialGaveUp } from './trial-gave-up.ts';
+import { DRIFT_JOB, TRIAL_JOB, type TrialQueue } from './trial-queue.ts';
+
+export interface TrialWorkerDeps extends TrialJobDeps {
+  boss: PgBoss;
+  /** Where drift checks put the trials they create (the same pg-boss queue). */
+  queue: TrialQueue;
+}
+
+/**
+ * Subscribes this process to the job queues: `trial.run` with one job at a time (timing needs a
+ * quiet core, so a worker never runs two trials), its dead letter, and `drift.check`.
+ *
+ * pg-boss stops waiting for a handler when the job's expiry passes (and retries the job) but
+ * cannot stop the handler itself; the chain below makes the next trial wait until the
+ * abandoned one has ended, so two trials never share the core. The abandoned try's results are
+ * then either written first (and the retry skips the completed trial) or discarded.
+ */
+export async function startTrialWorker(deps: TrialWorkerDeps): Promise<void> {
+  const { boss } = deps;
+  let chain: Promise<unknown> = Promise.resolve();
+  const oneAtATime = (trialId: number): Promise<TrialJobResult> => {
+    const run = chain.then(() => runTrialJob(deps, trialId));
+    chain = run.catch(() => {});
+    return run;
+  };
+
+  await boss.work<TrialJobData>(
+    TRIAL_JOB,
+    { batchSize: 1, pollingIntervalSeconds: 0.5 },
+    async ([job]) => (job ? oneAtATime(job.data.trialId) : null),
+  );
+  await boss.work<TrialJobData>(
+    TRIAL_DEAD_JOB,
+    { batchSize: 1, pollingIntervalSeconds: 2, includeMetadata: true },
+    async ([job]) => (job ? markTrialGaveUp(deps, job.data.trialId, job.output) : null),
+  );
+  await boss.work(DRIFT_JOB, { batchSize: 1, pollingIntervalSeconds: 2 }, async () => {
+    const started = await runDriftChecks(deps.db, deps.queue);
+    deps.logger.info({ count: started.length }, 'drift checks queued');
+    return { started };
+  });
+}

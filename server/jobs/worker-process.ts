@@ -1,0 +1,71 @@
+import type { Logger } from 'pino';
+import type { Env } from '@server/config/env.ts';
+import { createDatabase } from '@server/db/client.ts';
+import { scheduleDriftChecks } from '@server/drift/drift-schedule.ts';
+import { startOutboxSender } from '@server/mail/outbox.ts';
+import { createMailTransport } from '@server/mail/transport.ts';
+import { createPgBossQueue } from './pg-boss-queue.ts';
+import { startTrialWorker } from './trial-worker.ts';
+import type { WorkerSettings } from './worker-settings.ts';
+
+export interface RunningWorker {
+  /**
+   * Stops taking jobs, lets the trial in hand run on for up to WORKER_STOP_GRACE_SECONDS, then
+   * abandons it: pg-boss marks the abandoned job failed, which counts as a try and schedules
+   * the retry after its delay, and the retry starts the trial afresh. Results are only ever
+   * written in one final transaction, so an abandoned try leaves none behind.
+   */
+  stop(): Promise<void>;
+}
+
+/**
+ * The worker process's parts: the database, the pg-boss consumer of `trial.run` (one trial at a
+ * time), its dead letter and `drift.check`, the drift-check schedule and (unless turned off)
+ * the outbox sender.
+ */
+export async function startWorkerProcess(
+  env: Env,
+  settings: WorkerSettings,
+  logger: Logger,
+): Promise<RunningWorker> {
+  const database = createDatabase(env.DATABASE_URL, 4);
+  const queue = await createPgBossQueue({
+    databaseUrl: env.DATABASE_URL,
+    logger,
+    schema: settings.PGBOSS_SCHEMA,
+    maintenanceIntervalSeconds: settings.JOB_MAINTENANCE_SECONDS,
+  });
+  await startTrialWorker({
+    boss: queue.boss,
+    queue,
+    db: database.db,
+    env,
+    logger,
+    limits: {
+      callTimeoutMs: settings.TRIAL_CALL_TIMEOUT_MS,
+      memoryLimitMb: settings.TRIAL_MEMORY_LIMIT_MB,
+      timingBudgetMs: settings.TRIAL_TIMING_BUDGET_MS,
+    },
+  });
+  await scheduleDriftChecks(queue.boss, env.DRIFT_CHECK_CRON);
+  const outbox = settings.WORKER_SENDS_EMAIL
+    ? startOutboxSender({ db: database.db, transport: createMailTransport(env), logger })
+    : null;
+  logger.info({ schema: settings.PGBOSS_SCHEMA }, 'worker started');
+
+  return {
+    async stop() {
+      await outbox?.stop();
+      await queue.boss.stop({
+        graceful: true,
+        wait: true,
+        timeout: settings.WORKER_STOP_GRACE_SECONDS * 1000,
+      });
+      // A trial abandoned above may still hold a connection; do not wait for it for long.
+      await Promise.race([
+        database.pool.end(),
+        new Promise((resolve) => setTimeout(resolve, 2000).unref()),
+      ]);
+    },
+  };
+}

@@ -1,0 +1,34 @@
+import express, { type Router } from 'express';
+import { idParamsSchema } from '@shared/api/params.ts';
+import { stringifyWithNonFinite } from '@shared/json-numbers.ts';
+import { requireUser } from '@server/auth/current-user.ts';
+import type { Db } from '@server/db/client.ts';
+import { streamTrialEvents } from './trial-event-stream.ts';
+import { exportTrialCsv, getTrial, openTrialEvents } from './trials.service.ts';
+
+/** Trials: the full report, its per-matrix table as CSV, and live progress as server-sent events. */
+export function trialsRouter(db: Db): Router {
+  const router = express.Router();
+
+  // Non-finite metrics (a kernel's garbage, a singular matrix's κ) travel as strings.
+  router.get('/trials/:id', async (req, res) => {
+    const user = requireUser(req);
+    const { id } = idParamsSchema.parse(req.params);
+    res.type('application/json').send(stringifyWithNonFinite(await getTrial(db, user, id)));
+  });
+
+  router.get('/trials/:id/export.csv', async (req, res) => {
+    const user = requireUser(req);
+    const { id } = idParamsSchema.parse(req.params);
+    const { fileName, csv } = await exportTrialCsv(db, user, id);
+    res.attachment(fileName).type('text/csv; charset=utf-8').send(csv);
+  });
+
+  router.get('/trials/:id/events', async (req, res) => {
+    const user = requireUser(req);
+    const { id } = idParamsSchema.parse(req.params);
+    await streamTrialEvents(res, await openTrialEvents(db, user, id));
+  });
+
+  return router;
+}
