@@ -6,6 +6,8 @@ await build({
     main: 'server/main.ts',
     migrate: 'server/db/migrate.ts',
     worker: 'server/worker.ts',
+    'fake-github': 'server/fake-github/main.ts',
+    'fake-smtp': 'server/fake-smtp/main.ts',
   },
   outdir: 'dist/server',
   bundle: true,

@@ -1,6 +1,7 @@
 #!/usr/bin/env bash
 # npm start: from a fresh clone to a served app. Installs what is missing, starts PostgreSQL on
-# loopback, migrates, builds and serves on 127.0.0.1 until interrupted.
+# loopback, migrates, builds, then serves the app with a trial worker, the local fake OAuth
+# provider and the local fake SMTP server, all on 127.0.0.1, until interrupted.
 set -euo pipefail
 source "$(dirname "${BASH_SOURCE[0]}")/env.sh"
 cd "$ROOT_DIR"
@@ -15,4 +16,25 @@ npm run --silent build
 export NODE_ENV=production
 export PORT="${PORT:-3000}"
 export HOST=127.0.0.1
-exec node --no-node-snapshot --no-concurrent-recompilation dist/server/main.js
+NODE_FLAGS=(--no-node-snapshot --no-concurrent-recompilation)
+
+pids=()
+cleanup() {
+  for pid in "${pids[@]}"; do kill "$pid" 2>/dev/null || true; done
+  wait 2>/dev/null || true
+}
+trap cleanup EXIT INT TERM
+
+if [ "${FAKE_GITHUB_PORT:-3002}" != "0" ]; then
+  node dist/server/fake-github.js &
+  pids+=($!)
+fi
+if [ "${FAKE_SMTP_PORT:-2525}" != "0" ]; then
+  node dist/server/fake-smtp.js &
+  pids+=($!)
+fi
+node "${NODE_FLAGS[@]}" dist/server/worker.js &
+pids+=($!)
+node "${NODE_FLAGS[@]}" dist/server/main.js &
+pids+=($!)
+wait -n "${pids[@]}"

@@ -3,12 +3,18 @@ import { createApp } from './app.ts';
 import { loadEnv } from './config/env.ts';
 import { createDatabase } from './db/client.ts';
 import { createLogger } from './http/logger.ts';
+import { createPgBossQueue } from './jobs/pg-boss-queue.ts';
 
 const env = loadEnv();
 const logger = createLogger(env.LOG_LEVEL);
 const database = createDatabase(env.DATABASE_URL);
 const clientDir = env.CLIENT_DIR ?? (env.NODE_ENV === 'production' ? 'dist/client' : undefined);
-const app = createApp({ database, logger, clientDir });
+const queue = await createPgBossQueue({
+  databaseUrl: env.DATABASE_URL,
+  logger,
+  schema: process.env.PGBOSS_SCHEMA ?? 'pgboss',
+});
+const app = createApp({ database, logger, env, clientDir, queue });
 
 const server = app.listen(env.PORT, env.HOST, () => {
   const { port } = server.address() as AddressInfo;
@@ -19,7 +25,10 @@ const server = app.listen(env.PORT, env.HOST, () => {
 function shutdown(signal: string) {
   logger.info({ signal }, 'shutting down');
   server.close(() => {
-    void database.pool.end().finally(() => process.exit(0));
+    void queue
+      .stop()
+      .catch(() => {})
+      .finally(() => database.pool.end().finally(() => process.exit(0)));
   });
   setTimeout(() => process.exit(0), 5000).unref();
 }

@@ -1,6 +1,11 @@
 import { readFileSync } from 'node:fs';
+import { pathToFileURL } from 'node:url';
 
-const kernelsDirectory = new URL('./', import.meta.url);
+// Beside this module when run from source; from the project folder when bundled (dist/server).
+const here = new URL('./', import.meta.url);
+const kernelsDirectory = here.pathname.endsWith('/sandbox/kernels/')
+  ? here
+  : new URL('sandbox/kernels/', pathToFileURL(`${process.cwd()}/`));
 
 /**
  * Reads a kernel source shipped with the engine (an example or a starter) as text, by its path
