@@ -1,8 +1,25 @@
-import { Link, Outlet } from 'react-router-dom';
+import { useQuery } from '@tanstack/react-query';
+import { Link, NavLink, Outlet, useLocation } from 'react-router-dom';
+import { paths } from '@client/app/paths.ts';
+import { meQueries } from '@client/features/auth/me.queries.ts';
+import { signInHref } from '@client/features/auth/sign-in-link.ts';
+import { useCurrentTeam } from '@client/features/teams/use-current-team.ts';
+import { mailboxAvailableQuery } from './mailbox-available.ts';
 import { ServiceStatus } from './service-status.tsx';
+import { TeamSwitcher } from './team-switcher.tsx';
+import { UserMenu } from './user-menu.tsx';
 
-/** The frame of every page: product name, navigation, and the service status in the footer. */
+const navClass = ({ isActive }: { isActive: boolean }) =>
+  `border-b-2 px-1 pb-1 ${isActive ? 'border-ink font-medium text-ink' : 'border-transparent text-ink-soft hover:text-ink'}`;
+
+/** The frame of every page: product name, the person and their team, navigation, status. */
 export function AppShell() {
+  const me = useQuery(meQueries.current());
+  const mailbox = useQuery(mailboxAvailableQuery());
+  const { team, teamSlug } = useCurrentTeam();
+  const { pathname } = useLocation();
+  const navTeam = team?.slug ?? (teamSlug || me.data?.teams[0]?.slug);
+
   return (
     <div className="flex min-h-screen flex-col">
       <a
@@ -12,18 +29,58 @@ export function AppShell() {
         Skip to content
       </a>
       <header className="border-b border-rule">
-        <div className="mx-auto flex max-w-6xl items-baseline justify-between px-6 py-4">
-          <Link
-            to="/"
-            className="text-xl font-semibold tracking-tight text-ink"
-            data-testid="product-name"
-          >
-            Stablehand
-          </Link>
-          <span className="text-sm text-ink-soft">review service for factorisation kernels</span>
+        <div className="mx-auto flex max-w-6xl flex-wrap items-center justify-between gap-x-6 gap-y-2 px-6 py-3">
+          <div className="flex items-baseline gap-6">
+            <Link
+              to="/"
+              className="text-xl font-semibold tracking-tight text-ink"
+              data-testid="product-name"
+            >
+              Stablehand
+            </Link>
+            {me.data && navTeam ? (
+              <nav aria-label="Main" className="flex gap-4 text-sm">
+                <NavLink to={paths.team(navTeam)} className={navClass}>
+                  Routines
+                </NavLink>
+                <NavLink to={paths.logbook(navTeam)} className={navClass}>
+                  Logbook
+                </NavLink>
+                <NavLink to={paths.teamAdmin(navTeam)} className={navClass}>
+                  Team
+                </NavLink>
+                {mailbox.data ? (
+                  <NavLink to={paths.mailbox()} className={navClass}>
+                    Mailbox
+                  </NavLink>
+                ) : null}
+              </nav>
+            ) : mailbox.data && !me.data && !me.isPending ? (
+              <nav aria-label="Main" className="flex gap-4 text-sm">
+                <NavLink to={paths.mailbox()} className={navClass}>
+                  Mailbox
+                </NavLink>
+              </nav>
+            ) : null}
+          </div>
+          <div className="flex flex-wrap items-center gap-5">
+            {me.data ? (
+              <>
+                <TeamSwitcher teams={me.data.teams} current={team} />
+                <UserMenu user={me.data.user} />
+              </>
+            ) : me.isPending ? null : (
+              <a
+                href={signInHref(pathname)}
+                className="rounded border border-ink px-3 py-1 text-sm font-medium hover:bg-paper-deep"
+              >
+                Sign in with GitHub
+              </a>
+            )}
+          </div>
         </div>
       </header>
-      <main id="main" className="mx-auto w-full max-w-6xl flex-1 px-6 py-10">
+      <main id="main" className="mx-auto w-full max-w-6xl flex-1 px-6 py-8">
         <Outlet />
       </main>
       <footer className="border-t border-rule">

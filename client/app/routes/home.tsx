@@ -1,3 +1,9 @@
+import { useQuery } from '@tanstack/react-query';
+import { useSearchParams } from 'react-router-dom';
+import { LoadingState } from '@client/components/loading-state.tsx';
+import { meQueries } from '@client/features/auth/me.queries.ts';
+import { MyTeams } from '@client/features/teams/my-teams.tsx';
+
 const steps = [
   ['Submit', 'Write a kernel against its contract, paste it, or send it from CI with a token.'],
   [
@@ -11,8 +17,16 @@ const steps = [
   ],
 ] as const;
 
-/** The signed-out start page. */
+/** The start page: what Stablehand is when signed out, my teams when signed in. */
 export function HomePage() {
+  const me = useQuery(meQueries.current());
+  const [params] = useSearchParams();
+  if (me.isPending) return <LoadingState />;
+  if (me.data) return <MyTeams me={me.data} />;
+  return <SignedOutHome signInFailed={params.get('signin') === 'failed'} />;
+}
+
+function SignedOutHome({ signInFailed }: { signInFailed: boolean }) {
   return (
     <div className="grid gap-12 md:grid-cols-[3fr_2fr]">
       <section>
@@ -24,6 +38,11 @@ export function HomePage() {
           reference matrices, next to the one in production, and shows reviewers how its accuracy
           and speed compare.
         </p>
+        {signInFailed ? (
+          <p role="alert" className="mt-6 text-beyond">
+            <span aria-hidden="true">✕ </span>Sign-in did not complete. Please try again.
+          </p>
+        ) : null}
         <a
           href="/auth/github"
           className="mt-8 inline-block rounded border border-ink bg-ink px-5 py-2 font-medium text-paper hover:bg-ink-soft"
