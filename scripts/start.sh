@@ -18,6 +18,14 @@ export PORT="${PORT:-3000}"
 export HOST=127.0.0.1
 NODE_FLAGS=(--no-node-snapshot --no-concurrent-recompilation)
 
+# The demo team (server/demo/): loaded only into a database without teams, in one transaction;
+# its trials really run, which takes some seconds. A failed load writes nothing and the app
+# starts without it. After PORT is set, so the links in its e-mails point at this server.
+if [ "${DEMO_DATA:-on}" != "off" ]; then
+  log "loading the demo data if the database has no teams yet"
+  node "${NODE_FLAGS[@]}" --import tsx server/demo/main.ts || log "demo data not loaded; starting without it"
+fi
+
 pids=()
 cleanup() {
   for pid in "${pids[@]}"; do kill "$pid" 2>/dev/null || true; done
