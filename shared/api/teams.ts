@@ -6,13 +6,17 @@ import { teamRoleSchema } from '@shared/roles.ts';
 /** `:teamId` in `/api/teams/:teamId/...`. */
 export const teamParamsSchema = z.object({ teamId: idSchema });
 
-/** A GitHub login, as people know each other here. */
+/**
+ * A login, as people know each other here. GitHub's own logins use letters, digits and hyphens;
+ * the local fake provider (and the demo people, such as `priya.venkat`) also use dots and
+ * underscores, so those are accepted too.
+ */
 export const loginSchema = z
   .string()
   .trim()
   .min(1)
   .max(100)
-  .regex(/^[A-Za-z0-9](?:[A-Za-z0-9-]*[A-Za-z0-9])?$/, 'not a valid login');
+  .regex(/^[A-Za-z0-9](?:[A-Za-z0-9._-]*[A-Za-z0-9])?$/, 'not a valid login');
 
 /**
  * `POST /api/teams` (admin). The admin becomes the team's maintainer unless `maintainerLogin`
