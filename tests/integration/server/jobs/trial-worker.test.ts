@@ -138,14 +138,29 @@ describe('the trial worker', () => {
     expect(await matrixRows(database.db, sound.trialId)).toHaveLength(tinySet.length);
   });
 
-  it('ends a memory hog as trial-failed with out-of-memory results', async () => {
+  it('ends a memory hog as trial-failed with out-of-memory results, then completes the next trial', async () => {
     const hog = await queueCandidateTrial(database.db, world, exampleSource('lu-memory-hog'));
+    const sound = await queueCandidateTrial(
+      database.db,
+      world,
+      exampleSource('lu-partial-pivoting-right-looking'),
+    );
     await queue.enqueueTrial(hog.trialId);
+    await queue.enqueueTrial(sound.trialId);
+
     const trial = await finishedTrial(database.db, hog.trialId);
     expect(trial.status).toBe('trial-failed');
     const rows = await matrixRows(database.db, hog.trialId);
     expect(rows[0]!.candidate.status).toBe('out-of-memory');
     expect(await candidateState(database.db, hog.candidateId)).toBe('trial-failed');
+
+    // The isolate that ran out of memory took nothing of the worker with it.
+    const next = await finishedTrial(database.db, sound.trialId);
+    expect(next.status).toBe('completed');
+    expect(next.passed).toBe(true);
+    const nextRows = await matrixRows(database.db, sound.trialId);
+    expect(nextRows.map((r) => r.candidate.status)).toEqual(['ok', 'ok', 'ok', 'threw']);
+    expect(await candidateState(database.db, sound.candidateId)).toBe('in-review');
   });
 
   it('changes nothing when a completed trial is delivered again', async () => {
