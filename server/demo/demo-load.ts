@@ -5,12 +5,13 @@ import type { Env } from '@server/config/env.ts';
 import type { Db } from '@server/db/client.ts';
 import { teams } from '@server/db/schema/teams.ts';
 import { createDemoClock, momentTime } from './demo-clock.ts';
-import { playEvent, type DemoWorld } from './demo-events.ts';
+import { playEvent } from './demo-events.ts';
 import { createDemoPeople } from './demo-people.ts';
 import { createDemoRoutines, uploadStiffnessMatrices } from './demo-routine-setup.ts';
 import { demoStory, setupMoments, type DemoMoment } from './demo-story.ts';
 import { demoTeam } from './demo-team.ts';
 import { createDemoQueue, createDemoTrialRunner } from './demo-trials.ts';
+import type { DemoWorld } from './demo-world.ts';
 
 export type DemoLoadResult =
   | { loaded: false; reason: string }

@@ -2,14 +2,12 @@ import { loadEnv } from '@server/config/env.ts';
 import { createDatabase } from '@server/db/client.ts';
 import { createLogger } from '@server/http/logger.ts';
 import { createPgBossQueue } from '@server/jobs/pg-boss-queue.ts';
-import { loadWorkerSettings } from '@server/jobs/worker-settings.ts';
 import { loadDemo } from './demo-load.ts';
 
 // `npm run demo:load` (node --no-node-snapshot --no-concurrent-recompilation, like the worker:
 // the demo runs real trials). Loads the demo team into DATABASE_URL when it has no teams, then
 // hands the trials the story leaves queued to the job queue, for a worker to run.
 const env = loadEnv();
-const settings = loadWorkerSettings();
 const logger = createLogger(env.LOG_LEVEL).child({ process: 'demo' });
 const database = createDatabase(env.DATABASE_URL, 2);
 
@@ -22,7 +20,7 @@ try {
       const queue = await createPgBossQueue({
         databaseUrl: env.DATABASE_URL,
         logger,
-        schema: settings.PGBOSS_SCHEMA,
+        schema: env.PGBOSS_SCHEMA,
       });
       try {
         for (const trialId of result.queuedTrialIds) await queue.enqueueTrial(trialId);
