@@ -1,6 +1,7 @@
 import { createBrowserRouter, Navigate, useParams } from 'react-router-dom';
 import { AppShell } from '../components/app-shell.tsx';
 import { RouteError } from '../components/route-error.tsx';
+import { RoutinePage } from '../features/routines/routine-page.tsx';
 import { RoutinesPage } from '../features/routines/routines-page.tsx';
 import { TeamGate } from '../features/teams/team-gate.tsx';
 import { paths } from './paths.ts';
@@ -24,7 +25,25 @@ export const router = createBrowserRouter([
         children: [
           { index: true, element: <TeamIndex /> },
           { path: 'routines', element: <RoutinesPage /> },
-          // ── Part A's further pages (routine, submit, revise, trial report) ──
+          { path: 'routines/:routineId', element: <RoutinePage /> },
+          {
+            path: 'routines/:routineId/submit',
+            lazy: async () => ({
+              Component: (await import('../features/candidates/submit-page.tsx')).SubmitPage,
+            }),
+          },
+          {
+            path: 'candidates/:candidateId/revise',
+            lazy: async () => ({
+              Component: (await import('../features/candidates/revise-page.tsx')).RevisePage,
+            }),
+          },
+          {
+            path: 'trials/:trialId',
+            lazy: async () => ({
+              Component: (await import('../features/trials/trial-report-page.tsx')).TrialReportPage,
+            }),
+          },
           // ── Part B's pages go here (paths in ./paths.ts): ──
           //   candidates/:candidateId                 review page
           //   routines/:routineId/promotions          cleared candidates, promote, reinstate

@@ -1,0 +1,87 @@
+import {
+  formatGflops,
+  formatInterval,
+  formatMs,
+  formatTimingRatio,
+} from '@client/components/number-format.ts';
+import { SignalBadge } from '@client/components/signal-badge.tsx';
+import type { Signal } from '@client/components/signal.ts';
+import type { TimingReport } from '@shared/trial-report.ts';
+
+const verdictSignal: Record<string, Signal> = {
+  faster: 'within',
+  slower: 'beyond',
+  'no clear difference': 'near',
+};
+
+/** Per timing size: medians, GFLOP/s, the ratio with its 95 % interval, and the verdict. */
+export function TimingTable({ timing }: { timing: readonly TimingReport[] }) {
+  return (
+    <div className="overflow-x-auto">
+      <table className="w-full border-collapse text-sm" data-testid="timing-table">
+        <caption className="sr-only">Timing per size, candidate against incumbent</caption>
+        <thead className="border-b border-ink/30 text-ink-soft">
+          <tr>
+            <th scope="col" className="px-2 py-2 text-right font-medium">
+              n
+            </th>
+            <th scope="col" className="px-2 py-2 text-right font-medium">
+              Rounds
+            </th>
+            <th scope="col" className="px-2 py-2 text-right font-medium">
+              Candidate median
+            </th>
+            <th scope="col" className="px-2 py-2 text-right font-medium">
+              Incumbent median
+            </th>
+            <th scope="col" className="px-2 py-2 text-right font-medium">
+              Candidate speed
+            </th>
+            <th scope="col" className="px-2 py-2 text-right font-medium">
+              Incumbent speed
+            </th>
+            <th scope="col" className="px-2 py-2 text-right font-medium">
+              Time ratio
+            </th>
+            <th scope="col" className="px-2 py-2 text-right font-medium">
+              95 % interval
+            </th>
+            <th scope="col" className="px-2 py-2 text-left font-medium">
+              Verdict
+            </th>
+          </tr>
+        </thead>
+        <tbody className="font-mono text-xs">
+          {timing.map((t) => (
+            <tr key={t.n} className="border-b border-rule">
+              <td className="px-2 py-2 text-right">{t.n}</td>
+              <td className="px-2 py-2 text-right">{t.rounds}</td>
+              <td className="px-2 py-2 text-right">
+                {formatMs(t.candidateDetail?.medianMs ?? t.candidate)}
+              </td>
+              <td className="px-2 py-2 text-right">
+                {formatMs(t.incumbentDetail?.medianMs ?? t.incumbent)}
+              </td>
+              <td className="px-2 py-2 text-right">{formatGflops(t.candidateDetail?.gflops)}</td>
+              <td className="px-2 py-2 text-right">{formatGflops(t.incumbentDetail?.gflops)}</td>
+              <td className="px-2 py-2 text-right">{formatTimingRatio(t.ratio)}</td>
+              <td className="px-2 py-2 text-right">{formatInterval(t.ci95)}</td>
+              <td className="px-2 py-2 font-sans">
+                {t.verdict ? (
+                  <SignalBadge signal={verdictSignal[t.verdict] ?? 'neutral'}>
+                    {t.verdict}
+                  </SignalBadge>
+                ) : (
+                  <span className="text-ink-soft">{t.message ?? 'not judged'}</span>
+                )}
+                {t.flags.length > 0 ? (
+                  <span className="mt-1 block text-xs text-ink-soft">{t.flags.join(', ')}</span>
+                ) : null}
+              </td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
