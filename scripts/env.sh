@@ -9,6 +9,19 @@ export PGSOCK_DIR="${PGSOCK_DIR:-$ROOT_DIR/.data/pg-socket}"
 export PG_DB_NAME="${PG_DB_NAME:-stablehand}"
 export DATABASE_URL="${DATABASE_URL:-postgres://postgres@$PGHOST_ADDR:$PGPORT/$PG_DB_NAME}"
 
+# Production refuses the built-in session secret (server/config/env.ts), and npm start runs in
+# production. Unless SESSION_SECRET is set, use a secret made for this checkout on first use and
+# kept in .data/ (git-ignored), so sessions survive restarts.
+if [ -z "${SESSION_SECRET:-}" ]; then
+  SESSION_SECRET_FILE="$ROOT_DIR/.data/session-secret"
+  if [ ! -s "$SESSION_SECRET_FILE" ]; then
+    mkdir -p "$ROOT_DIR/.data"
+    (umask 077 && od -An -N32 -tx1 /dev/urandom | tr -d ' \n' >"$SESSION_SECRET_FILE")
+  fi
+  SESSION_SECRET="$(cat "$SESSION_SECRET_FILE")"
+  export SESSION_SECRET
+fi
+
 log() { printf '[stablehand] %s\n' "$*" >&2; }
 
 # apt-get update runs at most once per script run.

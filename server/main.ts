@@ -12,7 +12,7 @@ const clientDir = env.CLIENT_DIR ?? (env.NODE_ENV === 'production' ? 'dist/clien
 const queue = await createPgBossQueue({
   databaseUrl: env.DATABASE_URL,
   logger,
-  schema: process.env.PGBOSS_SCHEMA ?? 'pgboss',
+  schema: env.PGBOSS_SCHEMA,
 });
 const app = createApp({ database, logger, env, clientDir, queue });
 

@@ -1,14 +1,12 @@
 import { loadEnv } from './config/env.ts';
 import { createLogger } from './http/logger.ts';
 import { startWorkerProcess } from './jobs/worker-process.ts';
-import { loadWorkerSettings } from './jobs/worker-settings.ts';
 
 // The trial worker: `npm run worker` (node --no-node-snapshot --no-concurrent-recompilation, see
 // stack.md). Run one per quiet core; each runs one trial at a time.
 const env = loadEnv();
-const settings = loadWorkerSettings();
 const logger = createLogger(env.LOG_LEVEL).child({ process: 'worker' });
-const worker = await startWorkerProcess(env, settings, logger);
+const worker = await startWorkerProcess(env, logger);
 
 // SIGTERM/SIGINT: finish the trial in hand if it ends within the grace period, else abandon it
 // to pg-boss, which retries it after its retry delay (worker-process.ts). A worker killed

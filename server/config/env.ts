@@ -1,6 +1,9 @@
 import { z } from 'zod';
 
-const envSchema = z.object({
+/** The built-in session secret: fine on a developer's machine, refused in production. */
+export const developmentSessionSecret = 'development-only-session-secret';
+
+const envFields = z.object({
   NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
   HOST: z.string().default('127.0.0.1'),
   PORT: z.coerce.number().int().min(0).max(65535).default(3000),
@@ -9,7 +12,8 @@ const envSchema = z.object({
   DATABASE_URL: z.url().default('postgres://postgres@127.0.0.1:54329/stablehand'),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   CLIENT_DIR: z.string().optional(),
-  SESSION_SECRET: z.string().min(16).default('development-only-session-secret'),
+  /** Signs session cookies; production needs one of its own (see the check below). */
+  SESSION_SECRET: z.string().min(16).default(developmentSessionSecret),
   /** OAuth client of the GitHub-compatible provider (the local fake in development and tests). */
   GITHUB_CLIENT_ID: z.string().default('stablehand-local'),
   GITHUB_CLIENT_SECRET: z.string().default('stablehand-local-secret'),
@@ -27,6 +31,44 @@ const envSchema = z.object({
   MAIL_FROM: z.string().default('Stablehand <stablehand@localhost>'),
   /** Cron expression for drift checks of every incumbent (pg-boss schedule). */
   DRIFT_CHECK_CRON: z.string().default('0 3 * * *'),
+  /** Schema pg-boss keeps its tables in; the web process and the workers must agree on it. */
+  PGBOSS_SCHEMA: z
+    .string()
+    .regex(/^[a-z_][a-z0-9_]{0,62}$/)
+    .default('pgboss'),
+
+  // The worker's settings (server/worker.ts); the web process ignores them.
+  /** Longest single kernel call before the isolate stops it. */
+  TRIAL_CALL_TIMEOUT_MS: z.coerce.number().int().min(50).max(600_000).default(10_000),
+  /** Heap limit of each kernel's isolate. */
+  TRIAL_MEMORY_LIMIT_MB: z.coerce.number().int().min(16).max(4096).default(256),
+  /** Time budget per timing size (both kernels together); the engine's default when unset. */
+  TRIAL_TIMING_BUDGET_MS: z.coerce.number().int().min(0).max(600_000).optional(),
+  /**
+   * How often pg-boss's maintenance runs: it turns jobs whose worker died (active past their
+   * expiry) into retries. A dead worker's trial is retried within expiry + this.
+   */
+  JOB_MAINTENANCE_SECONDS: z.coerce.number().int().min(1).max(3600).default(60),
+  /** Whether this worker also drains the e-mail outbox (off when another process does). */
+  WORKER_SENDS_EMAIL: z
+    .enum(['true', 'false'])
+    .default('true')
+    .transform((v) => v === 'true'),
+  /** On SIGTERM/SIGINT, how long the current trial may run on before it is abandoned. */
+  WORKER_STOP_GRACE_SECONDS: z.coerce.number().int().min(1).max(3600).default(30),
+});
+
+const envSchema = envFields.superRefine((env, ctx) => {
+  // Anyone who has read this repository knows the built-in secret and could forge session
+  // cookies with it, so production refuses to start on it.
+  if (env.NODE_ENV === 'production' && env.SESSION_SECRET === developmentSessionSecret) {
+    ctx.addIssue({
+      code: 'custom',
+      path: ['SESSION_SECRET'],
+      message:
+        'production needs a secret of its own (at least 16 characters, for example from `openssl rand -hex 32`); the built-in development secret is public',
+    });
+  }
 });
 
 export type Env = z.infer<typeof envSchema>;

@@ -7,7 +7,7 @@ import { finishTrial, type TrialFinishDeps } from './trial-finish.ts';
 import { loadTrialInput } from './trial-inputs.ts';
 import { startAttempt, writeTrialProgress } from './trial-job.repo.ts';
 
-/** The limits a trial's kernels run under (worker-settings.ts). */
+/** The limits a trial's kernels run under (TRIAL_* in config/env.ts). */
 export interface TrialLimits {
   callTimeoutMs: number;
   memoryLimitMb: number;

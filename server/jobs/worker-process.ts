@@ -6,7 +6,6 @@ import { startOutboxSender } from '@server/mail/outbox.ts';
 import { createMailTransport } from '@server/mail/transport.ts';
 import { createPgBossQueue } from './pg-boss-queue.ts';
 import { startTrialWorker } from './trial-worker.ts';
-import type { WorkerSettings } from './worker-settings.ts';
 
 export interface RunningWorker {
   /**
@@ -23,17 +22,13 @@ export interface RunningWorker {
  * time), its dead letter and `drift.check`, the drift-check schedule and (unless turned off)
  * the outbox sender.
  */
-export async function startWorkerProcess(
-  env: Env,
-  settings: WorkerSettings,
-  logger: Logger,
-): Promise<RunningWorker> {
+export async function startWorkerProcess(env: Env, logger: Logger): Promise<RunningWorker> {
   const database = createDatabase(env.DATABASE_URL, 4);
   const queue = await createPgBossQueue({
     databaseUrl: env.DATABASE_URL,
     logger,
-    schema: settings.PGBOSS_SCHEMA,
-    maintenanceIntervalSeconds: settings.JOB_MAINTENANCE_SECONDS,
+    schema: env.PGBOSS_SCHEMA,
+    maintenanceIntervalSeconds: env.JOB_MAINTENANCE_SECONDS,
   });
   await startTrialWorker({
     boss: queue.boss,
@@ -42,16 +37,16 @@ export async function startWorkerProcess(
     env,
     logger,
     limits: {
-      callTimeoutMs: settings.TRIAL_CALL_TIMEOUT_MS,
-      memoryLimitMb: settings.TRIAL_MEMORY_LIMIT_MB,
-      timingBudgetMs: settings.TRIAL_TIMING_BUDGET_MS,
+      callTimeoutMs: env.TRIAL_CALL_TIMEOUT_MS,
+      memoryLimitMb: env.TRIAL_MEMORY_LIMIT_MB,
+      timingBudgetMs: env.TRIAL_TIMING_BUDGET_MS,
     },
   });
   await scheduleDriftChecks(queue.boss, env.DRIFT_CHECK_CRON);
-  const outbox = settings.WORKER_SENDS_EMAIL
+  const outbox = env.WORKER_SENDS_EMAIL
     ? startOutboxSender({ db: database.db, transport: createMailTransport(env), logger })
     : null;
-  logger.info({ schema: settings.PGBOSS_SCHEMA }, 'worker started');
+  logger.info({ schema: env.PGBOSS_SCHEMA }, 'worker started');
 
   return {
     async stop() {
@@ -59,7 +54,7 @@ export async function startWorkerProcess(
       await queue.boss.stop({
         graceful: true,
         wait: true,
-        timeout: settings.WORKER_STOP_GRACE_SECONDS * 1000,
+        timeout: env.WORKER_STOP_GRACE_SECONDS * 1000,
       });
       // A trial abandoned above may still hold a connection; do not wait for it for long.
       await Promise.race([
