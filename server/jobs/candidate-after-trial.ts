@@ -1,5 +1,5 @@
 import { desc, eq, sql } from 'drizzle-orm';
-import { auditLog } from '@server/db/schema/audit-log.ts';
+import { recordAudit } from '@server/audit/audit.ts';
 import { candidates } from '@server/db/schema/candidates.ts';
 import { revisions } from '@server/db/schema/revisions.ts';
 import { routines } from '@server/db/schema/routines.ts';
@@ -48,7 +48,7 @@ export async function moveCandidateAfterTrial(
     .select({ teamId: routines.teamId })
     .from(routines)
     .where(eq(routines.id, trial.routineId));
-  await tx.insert(auditLog).values({
+  await recordAudit(tx, {
     actorId: null,
     teamId: routine?.teamId ?? null,
     action: to === 'in-review' ? 'candidate.trial-completed' : 'candidate.trial-failed',

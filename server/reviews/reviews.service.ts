@@ -1,4 +1,5 @@
 import type { CreateReview, ReviewOutcome } from '@shared/api/reviews.ts';
+import { recordAudit } from '@server/audit/audit.ts';
 import type { CurrentUser } from '@server/auth/current-user.ts';
 import type { Env } from '@server/config/env.ts';
 import type { Db } from '@server/db/client.ts';
@@ -60,6 +61,15 @@ export async function submitReview(
     const reviewerName = (await contactOf(tx, user.id)).name;
     const move = { actorId: user.id, teamId: routine.teamId };
     const details = { reviewId: review.id, revision: revision.number };
+    // The verdict itself is a change of record even when it moves nothing (a first of two
+    // sign-offs); the candidate's moves below are audited as well, by moveCandidate.
+    await recordAudit(tx, {
+      ...move,
+      action: input.verdict === 'sign-off' ? 'review.signed-off' : 'review.sent-back',
+      entity: 'review',
+      entityId: review.id,
+      details: { candidateId, revision: revision.number },
+    });
 
     if (input.verdict === 'send-back') {
       current = await moveCandidate(tx, {

@@ -110,6 +110,17 @@ describe('signing off', () => {
       (await review(id, reviewer, { verdict: 'sign-off' })).body,
     );
     expect(one).toMatchObject({ candidateState: 'in-review', signOffs: 1, signOffsRequired: 2 });
+    // A sign-off that moves nothing is still in the audit log, under the reviewer's name.
+    const [signOffAudit] = await world.db
+      .select()
+      .from(auditLog)
+      .where(and(eq(auditLog.entity, 'review'), eq(auditLog.entityId, one.review.id)));
+    expect(signOffAudit).toMatchObject({
+      action: 'review.signed-off',
+      actorId: reviewer.id,
+      teamId: world.team.id,
+      details: { candidateId: id, revision: 1 },
+    });
     expect((await review(id, reviewer, { verdict: 'sign-off' })).status).toBe(409);
 
     // Revision 2 starts the count afresh.
