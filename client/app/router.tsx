@@ -44,15 +44,46 @@ export const router = createBrowserRouter([
               Component: (await import('../features/trials/trial-report-page.tsx')).TrialReportPage,
             }),
           },
-          // ── Part B's pages go here (paths in ./paths.ts): ──
-          //   candidates/:candidateId                 review page
-          //   routines/:routineId/promotions          cleared candidates, promote, reinstate
-          //   logbook, routines/:routineId/logbook     logbook
-          //   team                                     team admin
+          // ── Part B's pages ──
+          {
+            path: 'candidates/:candidateId',
+            lazy: async () => ({
+              Component: (await import('../features/review/review-page.tsx')).default,
+            }),
+          },
+          {
+            path: 'routines/:routineId/promotions',
+            lazy: async () => ({
+              Component: (await import('../features/promotions/promotions-page.tsx')).default,
+            }),
+          },
+          {
+            path: 'logbook',
+            lazy: async () => ({
+              Component: (await import('../features/logbook/team-logbook-page.tsx')).default,
+            }),
+          },
+          {
+            path: 'routines/:routineId/logbook',
+            lazy: async () => ({
+              Component: (await import('../features/logbook/routine-logbook-page.tsx')).default,
+            }),
+          },
+          {
+            path: 'team',
+            lazy: async () => ({
+              Component: (await import('../features/team-admin/team-admin-page.tsx')).default,
+            }),
+          },
           // ── end of part B's slot ──
         ],
       },
-      // Part B: the development mailbox at /dev/mailbox goes here.
+      {
+        path: 'dev/mailbox',
+        lazy: async () => ({
+          Component: (await import('../features/mailbox/mailbox-page.tsx')).default,
+        }),
+      },
       { path: '*', element: <NotFoundPage /> },
     ],
   },
