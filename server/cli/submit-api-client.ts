@@ -1,5 +1,10 @@
 import type { z } from 'zod';
-import { submissionSchema, type Submission } from '@shared/api/candidates.ts';
+import {
+  candidateDetailSchema,
+  submissionSchema,
+  type CandidateDetail,
+  type Submission,
+} from '@shared/api/candidates.ts';
 import { routinePageSchema, type RoutineSummary } from '@shared/api/routines.ts';
 import { teamPageSchema, type TeamSummary } from '@shared/api/teams.ts';
 import { trialDetailSchema, type TrialDetail } from '@shared/api/trials.ts';
@@ -31,6 +36,7 @@ export interface SubmitApiClient {
     routineId: number,
     body: { title: string; description?: string; source: string },
   ): Promise<Submission>;
+  candidate(candidateId: number): Promise<CandidateDetail>;
   submitRevision(candidateId: number, body: { source: string }): Promise<Submission>;
   trial(trialId: number): Promise<TrialDetail>;
   /** `GET` the trial's server-sent events; the caller reads the body. */
@@ -114,6 +120,8 @@ export function createSubmitApiClient(serverUrl: string, token: string): SubmitA
         }),
         submissionSchema,
       ),
+    candidate: async (candidateId) =>
+      read(await send(`/candidates/${candidateId}`), candidateDetailSchema),
     submitRevision: async (candidateId, body) =>
       read(
         await send(`/candidates/${candidateId}/revisions`, {

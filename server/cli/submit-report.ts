@@ -49,14 +49,19 @@ export function formatVerdict(trial: TrialDetail): string[] {
   return lines;
 }
 
-/** Where people read the trial and the candidate (the client's pages). */
+/**
+ * Where people read the trial and the candidate: the client's pages, whose paths must match
+ * client/app/paths.ts (`trial` and `candidate`).
+ */
 export function formatLinks(
   serverUrl: string,
+  teamSlug: string,
   submission: Submission,
   trialId: number | null,
 ): string[] {
+  const team = `${serverUrl}/teams/${encodeURIComponent(teamSlug)}`;
   return [
-    ...(trialId === null ? [] : [`trial:     ${serverUrl}/trials/${trialId}`]),
-    `candidate: ${serverUrl}/candidates/${submission.candidate.id}`,
+    ...(trialId === null ? [] : [`trial:     ${team}/trials/${trialId}`]),
+    `candidate: ${team}/candidates/${submission.candidate.id}`,
   ];
 }

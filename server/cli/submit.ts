@@ -16,6 +16,9 @@ import { formatDiagnostics, formatLinks, formatProgress, formatVerdict } from '.
 // server with an API token, follows its trial and exits 0 on a pass, 1 otherwise, 2 on a usage
 // error. Output goes to stdout; errors to stderr.
 
+/** The submission cannot go ahead: no such team or routine, or a candidate of another routine. */
+class CannotSubmit extends Error {}
+
 const say = (line: string) => process.stdout.write(`${line}\n`);
 const complain = (line: string) => process.stderr.write(`error: ${line}\n`);
 
@@ -31,13 +34,13 @@ function readKernel(file: string): string {
 async function findRoutineId(client: SubmitApiClient, options: SubmitOptions): Promise<number> {
   const team = (await client.teams()).find((t) => t.slug === options.teamSlug);
   if (!team) {
-    throw new UsageError(
+    throw new CannotSubmit(
       `No team "${options.teamSlug}" among your teams on ${client.serverUrl} (check the slug and your membership).`,
     );
   }
   const routine = (await client.routines(team.id)).find((r) => r.slug === options.routineSlug);
   if (!routine) {
-    throw new UsageError(`Team "${team.slug}" has no routine "${options.routineSlug}".`);
+    throw new CannotSubmit(`Team "${team.slug}" has no routine "${options.routineSlug}".`);
   }
   return routine.id;
 }
@@ -45,10 +48,16 @@ async function findRoutineId(client: SubmitApiClient, options: SubmitOptions): P
 async function submit(options: SubmitOptions, source: string): Promise<number> {
   const client = createSubmitApiClient(options.serverUrl, options.token);
   let submission: Submission;
+  const routineId = await findRoutineId(client, options);
   if (options.candidateId !== undefined) {
+    const candidate = await client.candidate(options.candidateId);
+    if (candidate.routine.id !== routineId) {
+      throw new CannotSubmit(
+        `Candidate ${candidate.id} belongs to the routine "${candidate.routine.title}", not to ${options.teamSlug}/${options.routineSlug}.`,
+      );
+    }
     submission = await client.submitRevision(options.candidateId, { source });
   } else {
-    const routineId = await findRoutineId(client, options);
     submission = await client.submitCandidate(routineId, {
       title: options.title ?? path.basename(options.kernelPath),
       ...(options.description !== undefined ? { description: options.description } : {}),
@@ -60,7 +69,8 @@ async function submit(options: SubmitOptions, source: string): Promise<number> {
   for (const line of formatDiagnostics(options.kernelPath, submission)) say(line);
   if (trial === null) {
     say('rejected: the kernel does not meet its contract, so no trial runs.');
-    for (const line of formatLinks(options.serverUrl, submission, null)) say(line);
+    for (const line of formatLinks(options.serverUrl, options.teamSlug, submission, null))
+      say(line);
     return 1;
   }
   say(`trial ${trial.id} queued`);
@@ -73,7 +83,8 @@ async function submit(options: SubmitOptions, source: string): Promise<number> {
     },
   });
   for (const line of formatVerdict(finished)) say(line);
-  for (const line of formatLinks(options.serverUrl, submission, trial.id)) say(line);
+  for (const line of formatLinks(options.serverUrl, options.teamSlug, submission, trial.id))
+    say(line);
   return finished.status === 'completed' && finished.passed === true ? 0 : 1;
 }
 
@@ -95,7 +106,7 @@ async function main(argv: string[]): Promise<number> {
   try {
     return await submit(options, source);
   } catch (err) {
-    if (err instanceof UsageError || err instanceof ServerUnreachableError) {
+    if (err instanceof CannotSubmit || err instanceof ServerUnreachableError) {
       complain(err.message);
     } else if (err instanceof ApiRequestError) {
       const hint =

@@ -66,9 +66,10 @@ describe('npm run submit', () => {
   const submitAs = (token: string, args: string[]) =>
     runSubmit(args, { STABLEHAND_TOKEN: token, STABLEHAND_URL: app.url });
 
-  /** The trial id from the command's `trial: <url>/trials/<id>` line. */
+  /** The trial id from the command's `trial: <url>/teams/<team>/trials/<id>` line (its page). */
   const trialIdIn = (stdout: string) => {
-    const match = new RegExp(`^trial: +${app.url}/trials/(\\d+)$`, 'm').exec(stdout);
+    const team = routineArg.split('/')[0]!;
+    const match = new RegExp(`^trial: +${app.url}/teams/${team}/trials/(\\d+)$`, 'm').exec(stdout);
     expect(match, stdout).not.toBeNull();
     return Number(match![1]);
   };
@@ -142,6 +143,9 @@ describe('npm run submit', () => {
     expect(run.stdout).toContain(`${file}:1:`);
     expect(run.stdout).toContain('rejected: the kernel does not meet its contract');
     expect(run.stdout).not.toMatch(/^trial:/m);
+    expect(run.stdout).toMatch(
+      new RegExp(`^candidate: +${app.url}/teams/${routineArg.split('/')[0]}/candidates/\\d+$`, 'm'),
+    );
   });
 
   it('exits 1 with a clear message for a token the server does not know', async () => {
