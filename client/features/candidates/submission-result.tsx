@@ -78,7 +78,7 @@ export function SubmissionResult({
             message={event?.message ?? trial.message}
           />
           {live.lost ? (
-            <p className="mt-1 text-sm text-near">
+            <p className="mt-1 text-sm text-ink">
               Live progress was interrupted; the report page shows the latest state.
             </p>
           ) : null}

@@ -123,7 +123,11 @@ export function RoutinePage() {
             <p className="mb-2 text-sm text-ink-soft">
               {routineTitles[r.contract]} · the declarations every kernel is type-checked against.
             </p>
-            <pre className="max-h-96 overflow-auto rounded border border-rule bg-paper-deep p-4 font-mono text-xs leading-relaxed">
+            <pre
+              tabIndex={0}
+              aria-label="Contract declarations"
+              className="max-h-96 overflow-auto rounded border border-rule bg-paper-deep p-4 font-mono text-xs leading-relaxed"
+            >
               {r.contractText}
             </pre>
           </Section>

@@ -19,6 +19,9 @@ export function PlotFigure({
     if (!host) return;
     const width = Math.max(320, Math.min(host.clientWidth || 560, 720));
     const figure = render(width);
+    // The wrapper is the image with its label; Plot's own labels on groups are not allowed there.
+    figure.setAttribute('aria-hidden', 'true');
+    figure.querySelectorAll('[aria-label]').forEach((el) => el.removeAttribute('aria-label'));
     host.replaceChildren(figure);
     return () => figure.remove();
     // eslint-disable-next-line react-hooks/exhaustive-deps
