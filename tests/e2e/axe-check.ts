@@ -21,9 +21,7 @@ export async function seriousAxeViolations(page: Page): Promise<AxeFinding[]> {
     const axe = (
       window as unknown as {
         axe: {
-          run: (
-            ctx: Document,
-          ) => Promise<{
+          run: (ctx: Document) => Promise<{
             violations: {
               id: string;
               impact: string | null;
