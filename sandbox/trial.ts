@@ -66,9 +66,11 @@ export async function runTrial(input: TrialInput): Promise<TrialReport> {
     machine: machineFingerprint(),
     startedAt: new Date().toISOString(),
   };
+  // KernelLimits calls the heap limit memoryMb: the trial's memoryLimitMb must reach it (it
+  // used to be passed under its own name and ignored). Unset, the runner's default applies.
   const limits = {
     callTimeoutMs: input.callTimeoutMs ?? 10_000,
-    memoryLimitMb: input.memoryLimitMb ?? 256,
+    ...(input.memoryLimitMb !== undefined ? { memoryMb: input.memoryLimitMb } : {}),
   };
 
   progress({ phase: 'compile', done: 0, total: input.incumbentSource ? 2 : 1 });

@@ -29,8 +29,8 @@ export interface CallPlan {
 /**
  * JavaScript run in each fresh context before the kernel's module. It captures the intrinsics
  * it uses before any kernel code can replace them, removes V8's `console` (so the kernel finds
- * no channel out), and returns [load, call, stage, runStaged] without touching the global
- * object. Everything here runs inside the isolate under the caller's timeout, including any
+ * no channel out), and returns [load, call, stage, runStaged, stagedResult] without touching the
+ * global object. Everything here runs inside the isolate under the caller's timeout, including any
  * getter, Proxy trap or toString the kernel plants in its result or thrown value.
  * A kernel that returns a Promise is invalid output: kernels must be synchronous.
  */
@@ -42,6 +42,7 @@ export const inIsolatePrelude = `(function () {
   const Str = String;
   const isArray = Array.isArray;
   const getProto = Object.getPrototypeOf;
+  const setProto = Object.setPrototypeOf;
   const own = Object.getOwnPropertyDescriptor;
   const typedProto = getProto(Int8Array.prototype);
   const tagOf = own(typedProto, Symbol.toStringTag).get;
@@ -53,6 +54,13 @@ export const inIsolatePrelude = `(function () {
   delete globalThis.console;
   let kernel;
   let staged;
+  let stagedResults;
+
+  // Lists the prelude fills by index have no prototype: a kernel that plants a setter for '0'
+  // on Array.prototype must not be able to swallow the staged inputs (and so time nothing).
+  function list() {
+    return setProto([], null);
+  }
 
   function text(value) {
     let s;
@@ -159,9 +167,10 @@ export const inIsolatePrelude = `(function () {
 
   function stage(inputs, repeat) {
     try {
-      const list = [];
-      for (let k = 0; k < repeat; k++) list[k] = cloneArgs(inputs);
-      staged = list;
+      const copies = list();
+      for (let k = 0; k < repeat; k++) copies[k] = cloneArgs(inputs);
+      staged = copies;
+      stagedResults = undefined;
       return { s: 'ok' };
     } catch (e) {
       return failure(e);
@@ -169,17 +178,33 @@ export const inIsolatePrelude = `(function () {
   }
 
   function runStaged() {
-    const list = staged;
+    const copies = staged;
+    const results = list();
     staged = undefined;
-    for (let k = 0; k < list.length; k++) {
+    for (let k = 0; k < copies.length; k++) {
       try {
-        apply(kernel, undefined, list[k]);
+        results[k] = apply(kernel, undefined, copies[k]);
       } catch (e) {
         return failure(e);
       }
     }
+    stagedResults = results;
     return { s: 'ok' };
   }
 
-  return [load, call, stage, runStaged];
+  // After timing, outside the timed step: the result of timed call k, collected like a call's,
+  // so the host can check that the kernel did its work while it was timed.
+  function stagedResult(plan, k) {
+    const results = stagedResults;
+    if (results === undefined || k >= results.length) {
+      return { s: 'invalid', m: 'the timed call left no result to check' };
+    }
+    try {
+      return collect(results[k], plan);
+    } catch (e) {
+      return { s: 'invalid', m: 'reading the result failed: ' + text(e) };
+    }
+  }
+
+  return [load, call, stage, runStaged, stagedResult];
 })()`;

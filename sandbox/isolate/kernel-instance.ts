@@ -23,7 +23,7 @@ export interface CallOutcome<T> {
 }
 
 type Failure = {
-  status: 'threw' | 'timeout' | 'out-of-memory' | 'invalid-output';
+  status: 'threw' | 'timeout' | 'out-of-memory' | 'invalid-output' | 'non-finite';
   message: string;
 };
 
@@ -125,14 +125,36 @@ export function createKernelInstance<R extends RoutineSlug>(
   // out, and `stage` has copied the inputs in beforehand. What remains besides the kernel is
   // entering the isolate (tens of µs), the same for every kernel; `repeat` spreads it when one
   // call is that short. The isolate itself has no high-resolution clock, only Date.now.
-  async function runTimed(inputs: unknown[], repeat: number): Promise<TimeOutcome> {
+  async function runTimed(args: CallArgs, inputs: unknown[], repeat: number): Promise<TimeOutcome> {
     const staged = await guarded((s) => s.stage(inputs, repeat));
     if ('status' in staged) return { ok: false, ...staged };
     if (staged.s !== 'ok') return { ok: false, ...envelopeFailure(staged, limits) };
     const out = await guarded((s) => s.runStaged(limits.callTimeoutMs * repeat));
     if ('status' in out) return { ok: false, ...out };
     if (out.s !== 'ok') return { ok: false, ...envelopeFailure(out, limits) };
+    const cheated = await checkTimedResults(args, repeat);
+    if (cheated) return { ok: false, ...cheated };
     return { ok: true, ms: Number(out.wallNs) / 1e6 / repeat };
+  }
+
+  // A kernel can tell a timed call from a checked one (by the clock, or by counting calls) and
+  // skip its work while timed; so each timed call's result is copied out after the timed step
+  // and checked on the host like a call's. It catches a wrong shape, type or non-finite value,
+  // not a well-formed but wrong factorisation.
+  async function checkTimedResults(args: CallArgs, repeat: number): Promise<Failure | null> {
+    const plan = callPlan(routine, args.m, args.n);
+    for (let k = 0; k < repeat; k++) {
+      const out = await guarded((s) => s.stagedResult(plan, k));
+      let failure: Failure | null = null;
+      if ('status' in out) failure = out;
+      else if (out.s !== 'ok') failure = envelopeFailure(out, limits);
+      else {
+        const valid = validateResult(routine, returnedValue(routine, out, args.m, args.n), args);
+        if (!valid.ok) failure = valid;
+      }
+      if (failure) return { status: failure.status, message: `While timed: ${failure.message}` };
+    }
+    return null;
   }
 
   return {
@@ -150,7 +172,7 @@ export function createKernelInstance<R extends RoutineSlug>(
       if (!Number.isInteger(repeat) || repeat < 1) {
         throw new RangeError(`options.repeat must be a positive integer, got ${repeat}`);
       }
-      return serially(() => runTimed(inputs, repeat));
+      return serially(() => runTimed(args, inputs, repeat));
     },
     dispose() {
       disposed = true;

@@ -23,6 +23,8 @@ export interface KernelSession {
    * time for the whole step (isolated-vm's `wallTime` delta, ns).
    */
   runStaged(timeoutMs: number): Promise<Envelope & { wallNs: bigint }>;
+  /** Copies out the result of timed call `k` of the last `runStaged`, checked like a call's. */
+  stagedResult(plan: CallPlan, k: number): Promise<Envelope>;
   dispose(): void;
 }
 
@@ -58,8 +60,8 @@ export async function startKernelSession(
   try {
     const context = await isolate.createContext();
     const api = await context.eval(inIsolatePrelude, { reference: true, timeout });
-    const [load, call, stage, runStaged] = (await Promise.all(
-      [0, 1, 2, 3].map((i) => api.get(i, { reference: true })),
+    const [load, call, stage, runStaged, stagedResult] = (await Promise.all(
+      [0, 1, 2, 3, 4].map((i) => api.get(i, { reference: true })),
     )) as ivm.Reference<Fn>[];
     const script = await isolate.compileScript(
       `(function (module, exports) { "use strict";\n${js}\n})`,
@@ -112,6 +114,13 @@ export async function startKernelSession(
         });
         return { ...checked(envelope), wallNs: isolate.wallTime - before };
       },
+      stagedResult: (plan, k) =>
+        stagedResult!
+          .apply(undefined, [new ivm.ExternalCopy(plan).copyInto({ release: true }), k], {
+            timeout: limits.callTimeoutMs,
+            result: { copy: true },
+          })
+          .then(checked),
       dispose: () => disposeQuietly(isolate),
     };
     return { ok: true, session };
