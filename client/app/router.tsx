@@ -1,5 +1,6 @@
 import { createBrowserRouter, Navigate, useParams } from 'react-router-dom';
 import { AppShell } from '../components/app-shell.tsx';
+import { LoadingState } from '../components/loading-state.tsx';
 import { RouteError } from '../components/route-error.tsx';
 import { RoutinePage } from '../features/routines/routine-page.tsx';
 import { RoutinesPage } from '../features/routines/routines-page.tsx';
@@ -17,6 +18,8 @@ export const router = createBrowserRouter([
   {
     element: <AppShell />,
     errorElement: <RouteError />,
+    // Shown while a lazily loaded page (editor, report) arrives on a direct visit.
+    hydrateFallbackElement: <LoadingState />,
     children: [
       { index: true, element: <HomePage /> },
       {

@@ -60,8 +60,14 @@ export function ErrorConditionPlot({ matrices }: { matrices: readonly MatrixRepo
             fontFamily: 'IBM Plex Mono, monospace',
             fontSize: '11px',
           },
-          x: { type: 'log', label: 'condition number κ₁ →', grid: true },
-          y: { type: 'log', label: '↑ forward error', grid: true },
+          x: {
+            type: 'log',
+            label: 'condition number κ₁ →',
+            grid: true,
+            ticks: 6,
+            tickFormat: '.0e',
+          },
+          y: { type: 'log', label: '↑ forward error', grid: true, ticks: 6, tickFormat: '.0e' },
           color: {
             domain: ['candidate', 'incumbent'],
             range: ['#1d2b45', '#b7791f'],
