@@ -31,8 +31,8 @@ export function formatProgress(event: TrialEvent): string {
   if (status !== 'running') return `${status}${event.message ? `: ${event.message}` : ''}`;
   const unit = phaseUnits[progress.phase];
   const count =
-    progress.total > 0 ? ` ${progress.done}/${progress.total}${unit ? ` ${unit}` : ''}` : '';
-  return `${progress.phase}:${count}${progress.label ? ` (${progress.label})` : ''}`;
+    progress.total > 0 ? `: ${progress.done}/${progress.total}${unit ? ` ${unit}` : ''}` : '';
+  return `${progress.phase}${count}${progress.label ? ` (${progress.label})` : ''}`;
 }
 
 /** The outcome: the policy verdict rule by rule, or why the trial did not complete. */
@@ -43,7 +43,9 @@ export function formatVerdict(trial: TrialDetail): string[] {
   }
   const lines = [`verdict: ${trial.verdict.passed ? 'PASSED' : 'FAILED'}`];
   for (const rule of trial.verdict.rules) {
-    const offenders = rule.offenders.length > 0 ? ` [${rule.offenders.join(', ')}]` : '';
+    // The reason often names the offenders already; list them only when it does not.
+    const unnamed = rule.offenders.filter((o) => !rule.reason.includes(o));
+    const offenders = unnamed.length > 0 ? ` [${unnamed.join(', ')}]` : '';
     lines.push(`  ${rule.passed ? 'pass' : 'FAIL'}  ${rule.rule}: ${rule.reason}${offenders}`);
   }
   return lines;

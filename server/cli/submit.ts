@@ -23,7 +23,13 @@ const say = (line: string) => process.stdout.write(`${line}\n`);
 const complain = (line: string) => process.stderr.write(`error: ${line}\n`);
 
 function readKernel(file: string): string {
-  const source = readFileSync(file, 'utf8');
+  let source: string;
+  try {
+    source = readFileSync(file, 'utf8');
+  } catch (err) {
+    const code = (err as NodeJS.ErrnoException).code ?? (err as Error).message;
+    throw new Error(`Cannot read the kernel file ${file} (${code}).`, { cause: err });
+  }
   if (Buffer.byteLength(source) > maxKernelSourceBytes) {
     throw new UsageError(`${file} is larger than ${maxKernelSourceBytes} bytes.`);
   }

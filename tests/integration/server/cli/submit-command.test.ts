@@ -170,30 +170,28 @@ describe('npm run submit', () => {
     expect(run.stderr).toContain('has no routine "no-such-routine"');
   });
 
+  // Every refusal of the argument parser is in tests/unit/server/cli/submit-args.test.ts; these
+  // check that the command turns them (and a missing file) into exit code 2 and the usage.
   it.each([
     ['no kernel file', ['--routine', 'a-team/a-routine'], 'Give exactly one kernel file.'],
-    ['no routine', [kernel('lu-endless-loop')], '--routine <team-slug>/<routine-slug> is required'],
-    ['a routine without its team', [kernel('lu-endless-loop'), '--routine', 'dense-lu'], 'must be'],
     [
       'an unknown option',
       [kernel('lu-endless-loop'), '--routine', 'a-b/c-d', '--fast'],
       "'--fast'",
     ],
-    [
-      'a bad candidate id',
-      [kernel('lu-endless-loop'), '--routine', 'ab/cd', '--candidate', 'x'],
-      '--candidate',
-    ],
-    [
-      'a file that is not there',
-      [path.resolve('no-such-kernel.ts'), '--routine', 'ab/cd'],
-      'ENOENT',
-    ],
   ])('exits 2 with the usage for %s', async (_what, args, message) => {
     const run = await submitAs(world.author.token, args);
     expect(run.code).toBe(2);
     expect(run.stderr).toContain(message);
+    expect(run.stderr).toContain('Usage: npm run submit --');
     expect(run.stdout).toBe('');
+  });
+
+  it('exits 2 when the kernel file cannot be read', async () => {
+    const missing = path.resolve('no-such-kernel.ts');
+    const run = await submitAs(world.author.token, [missing, '--routine', routineArg]);
+    expect(run.code).toBe(2);
+    expect(run.stderr).toContain(`Cannot read the kernel file ${missing} (ENOENT)`);
   });
 
   it('exits 2 when STABLEHAND_TOKEN is not set', async () => {
