@@ -113,6 +113,7 @@ describe('GET /api/dev/mailbox', () => {
     await send('Invitation');
     const prodUrl = await serveApp({
       NODE_ENV: 'production',
+      SESSION_SECRET: 'a-production-secret-for-this-test',
       FAKE_SMTP_HTTP_PORT: String(fake.httpPort),
     });
     for (const [method, path] of [

@@ -271,11 +271,14 @@ describe('the whole review process through the API', () => {
         `${subject} → ${to}`,
       ).toHaveLength(1);
     }
-    // Each notification links to the candidate's page on this app.
+    // The notification links to the candidate's page on this app (with or without the team's
+    // prefix that the client's own paths use).
     const cleared = messages.find((m) => m.subject.startsWith('Cleared:'))!;
     const clearedText = mailboxMessageSchema.parse(
       await (await fetch(`${world.app.url}/api/dev/mailbox/${cleared.id}`)).json(),
     ).text;
-    expect(clearedText).toContain(`${world.app.url}/candidates/${candidateId}`);
+    expect(clearedText).toMatch(
+      new RegExp(`${world.app.url}/(teams/frame-analysis/)?candidates/${candidateId}\\b`),
+    );
   });
 });
