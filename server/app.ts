@@ -3,12 +3,14 @@ import type { Logger } from 'pino';
 import { authRouter } from './auth/auth.routes.ts';
 import { authenticateBearer } from './auth/authenticate.ts';
 import { refuseCrossSiteWrites } from './auth/csrf.ts';
+import { createRateLimits } from './auth/rate-limits.ts';
 import { createSessionAuth } from './auth/session.ts';
 import { loadEnv, type Env } from './config/env.ts';
 import type { Database } from './db/client.ts';
 import { clientAppRouter } from './http/client-app.ts';
 import { apiNotFound, errorHandler } from './http/errors.ts';
 import { requestLogger } from './http/logger.ts';
+import { securityHeaders } from './http/security-headers.ts';
 import { healthRouter } from './health/health.routes.ts';
 import { meRouter } from './me/me.routes.ts';
 import { tokensRouter } from './tokens/tokens.routes.ts';
@@ -49,13 +51,17 @@ export function createApp(deps: AppDeps): Express {
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
   app.use(requestLogger(logger));
+  app.use(securityHeaders(env));
+  const limits = createRateLimits(env);
+  app.use('/auth/github', limits.signIn);
   app.use(express.json({ limit: '1mb' }));
   // Sign-in: the session cookie first, then a Bearer token (which wins when both are sent);
   // both end in req.currentUser. Cookie-authenticated writes must come from our own pages.
   const sessionAuth = createSessionAuth(database, env);
   app.use(['/api', '/auth'], sessionAuth.middleware);
-  app.use(authenticateBearer(database.db));
+  app.use(limits.tokenFailures, authenticateBearer(database.db));
   app.use(refuseCrossSiteWrites(env));
+  app.post(['/api/routines/:id/candidates', '/api/candidates/:id/revisions'], limits.submissions);
 
   // Every API router, in one visible table.
   app.use('/auth', authRouter({ db: database.db, env, sessionAuth }));

@@ -37,6 +37,15 @@ const envFields = z.object({
     .regex(/^[a-z_][a-z0-9_]{0,62}$/)
     .default('pgboss'),
 
+  /** Rate limits (server/auth/rate-limits.ts): the window, and requests allowed in it; 0 = off. */
+  RATE_LIMIT_WINDOW_SECONDS: z.coerce.number().int().min(1).max(86_400).default(60),
+  /** Sign-in starts and callbacks per client address. */
+  RATE_LIMIT_SIGN_IN: z.coerce.number().int().min(0).default(60),
+  /** Requests with a refused API token per client address. */
+  RATE_LIMIT_TOKEN_FAILURES: z.coerce.number().int().min(0).default(60),
+  /** New candidates and revisions per person. */
+  RATE_LIMIT_SUBMISSIONS: z.coerce.number().int().min(0).default(120),
+
   // The worker's settings (server/worker.ts); the web process ignores them.
   /** Longest single kernel call before the isolate stops it. */
   TRIAL_CALL_TIMEOUT_MS: z.coerce.number().int().min(50).max(600_000).default(10_000),
