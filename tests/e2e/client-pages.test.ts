@@ -219,6 +219,41 @@ describe('part A of the web client in Chromium', () => {
     expect(csv.trim().split('\r\n')).toHaveLength(5);
   });
 
+  it(
+    'submits a new revision whose signature breaks the contract: flagged as typed, then by the server',
+    { timeout: 120_000 },
+    async () => {
+      const candidateHref = await page
+        .getByRole('link', { name: 'Row-oriented GEPP from the starter' })
+        .getAttribute('href');
+      expect(candidateHref).toMatch(/\/candidates\/\d+$/);
+      await page.goto(`${world.app.url}${candidateHref}/revise`, { waitUntil: 'networkidle' });
+      await expect.poll(heading).toBe('New revision of “Row-oriented GEPP from the starter”');
+      await page.waitForSelector('.monaco-editor', { timeout: 20_000 });
+      const problems = page.getByTestId('editor-problems');
+      // It starts from the latest revision's source, which checks.
+      await expect
+        .poll(() => problems.textContent(), { timeout: 20_000 })
+        .toContain('No type errors');
+      await expectAccessible('revise');
+
+      await page.locator('.monaco-editor .view-lines').click();
+      await page.keyboard.press('Control+A');
+      await page.keyboard.insertText(
+        'export function factor(a: Float64Array, n: number): string {\n  return `${a.length}x${n}`;\n}\n',
+      );
+      await expect
+        .poll(() => problems.textContent(), { timeout: 45_000 })
+        .toContain('`factor` does not match the contract');
+
+      await page.getByRole('button', { name: 'Submit the revision for trial' }).click();
+      const result = page.getByTestId('type-check-result');
+      await expect.poll(() => result.textContent()).toMatch(/\d+ errors?/);
+      expect(await result.textContent()).toContain('factor');
+      expect(await page.getByTestId('trial-progress').count()).toBe(0);
+    },
+  );
+
   it('loaded nothing from another site and threw no page errors', () => {
     expect(foreign).toEqual([]);
     expect(pageErrors).toEqual([]);

@@ -1,5 +1,5 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useQuery } from '@tanstack/react-query';
+import { keepPreviousData, useQuery } from '@tanstack/react-query';
 import { Controller, useForm } from 'react-hook-form';
 import { Link, useParams } from 'react-router-dom';
 import { paths } from '@client/app/paths.ts';
@@ -27,7 +27,13 @@ export function RevisePage() {
   const routineId = candidate.data?.routine.id ?? 0;
   const routine = useQuery({ ...routineQueries.detail(routineId), enabled: routineId > 0 });
   const latest = candidate.data?.revisions.at(-1);
-  const revision = useQuery({ ...revisionQueries.detail(latest?.id ?? 0), enabled: !!latest });
+  // After a submission the latest revision changes; keep the form (and its result) on screen
+  // while the new one loads instead of unmounting it.
+  const revision = useQuery({
+    ...revisionQueries.detail(latest?.id ?? 0),
+    enabled: !!latest,
+    placeholderData: keepPreviousData,
+  });
 
   const failed = candidate.error ?? routine.error ?? revision.error;
   if (failed) return <ErrorState error={failed} />;
