@@ -20,6 +20,7 @@ export async function candidateMailContext(
   const team = await teamNames(db, routine.teamId);
   return {
     ref: {
+      teamSlug: team.slug,
       candidateId: candidate.id,
       candidateTitle: candidate.title,
       routineTitle: routine.title,

@@ -81,7 +81,7 @@ export async function finishDriftCheck(
       const maintainers = await teamAddresses(tx, routine.teamId, ['maintainer']);
       const email = driftAlertEmail(env, {
         teamSlug: team.slug,
-        routineSlug: routine.slug,
+        routineId: routine.id,
         routineTitle: routine.title,
         teamName: team.name,
         findings: result.findings,

@@ -88,7 +88,7 @@ export async function promoteCandidate(
     const mail = await candidateMailContext(tx, routine, candidate, latestRevision.number);
     const email = promotedEmail(env, {
       teamSlug: mail.team.slug,
-      routineSlug: routine.slug,
+      routineId: routine.id,
       routineTitle: routine.title,
       teamName: mail.team.name,
       maintainerName: (await contactOf(tx, user.id)).name,

@@ -49,7 +49,7 @@ export async function reinstateIncumbent(
     const team = await teamNames(tx, routine.teamId);
     const email = reinstatedEmail(env, {
       teamSlug: team.slug,
-      routineSlug: routine.slug,
+      routineId: routine.id,
       routineTitle: routine.title,
       teamName: team.name,
       maintainerName: (await contactOf(tx, user.id)).name,

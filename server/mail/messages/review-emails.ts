@@ -4,6 +4,7 @@ import { candidateLink } from '../email-links.ts';
 
 /** The candidate a review message is about. */
 export interface CandidateRef {
+  teamSlug: string;
   candidateId: number;
   candidateTitle: string;
   routineTitle: string;
@@ -11,7 +12,7 @@ export interface CandidateRef {
 }
 
 function openCandidate(env: Env, c: CandidateRef) {
-  return { label: 'Open the candidate', url: candidateLink(env, c.candidateId) };
+  return { label: 'Open the candidate', url: candidateLink(env, c) };
 }
 
 function named(c: CandidateRef): string {

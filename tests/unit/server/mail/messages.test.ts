@@ -18,6 +18,7 @@ const hostile = `<script>alert("x")</script> & 'Ω'\nBcc: someone`;
 const escaped = `&lt;script&gt;alert(&quot;x&quot;)&lt;/script&gt; &amp; &#39;Ω&#39;`;
 
 const candidate = {
+  teamSlug: 'frame-solvers',
   candidateId: 42,
   candidateTitle: hostile,
   routineTitle: hostile,
@@ -25,12 +26,12 @@ const candidate = {
 };
 const routine = {
   teamSlug: 'frame-solvers',
-  routineSlug: 'cholesky',
+  routineId: 7,
   routineTitle: hostile,
   teamName: hostile,
 };
-const candidateUrl = 'https://stablehand.frame.example/candidates/42';
-const logbookUrl = 'https://stablehand.frame.example/teams/frame-solvers/routines/cholesky/logbook';
+const candidateUrl = 'https://stablehand.frame.example/teams/frame-solvers/candidates/42';
+const logbookUrl = 'https://stablehand.frame.example/teams/frame-solvers/routines/7/logbook';
 
 const cases: [string, EmailContent, string][] = [
   [
