@@ -38,6 +38,8 @@ if [ "${FAKE_GITHUB_PORT:-3002}" != "0" ]; then
   pids+=($!)
 fi
 if [ "${FAKE_SMTP_PORT:-2525}" != "0" ]; then
+  # The fake SMTP server keeps every message; let the app's mailbox page show them.
+  export MAILBOX="${MAILBOX:-on}"
   node dist/server/fake-smtp.js &
   pids+=($!)
 fi

@@ -28,6 +28,11 @@ const envFields = z.object({
   FAKE_SMTP_PORT: z.coerce.number().int().min(0).max(65535).default(2525),
   /** Port of the fake SMTP server's JSON reader (on SMTP_HOST); the development mailbox reads it. */
   FAKE_SMTP_HTTP_PORT: z.coerce.number().int().min(1).max(65535).default(2526),
+  /**
+   * Whether /api/dev/mailbox shows what the fake SMTP server captured: on by default except in
+   * production; npm start turns it on, since it runs the fake SMTP server beside the app.
+   */
+  MAILBOX: z.enum(['on', 'off']).optional(),
   MAIL_FROM: z.string().default('Stablehand <stablehand@localhost>'),
   /** Cron expression for drift checks of every incumbent (pg-boss schedule). */
   DRIFT_CHECK_CRON: z.string().default('0 3 * * *'),
@@ -95,4 +100,9 @@ export function loadEnv(source: NodeJS.ProcessEnv = process.env): Env {
 /** The public base URL, defaulting to the listening address. */
 export function publicUrl(env: Env): string {
   return (env.PUBLIC_URL ?? `http://${env.HOST}:${env.PORT}`).replace(/\/$/, '');
+}
+
+/** Whether the development mailbox is served (the MAILBOX setting, else off only in production). */
+export function mailboxEnabled(env: Env): boolean {
+  return env.MAILBOX === undefined ? env.NODE_ENV !== 'production' : env.MAILBOX === 'on';
 }

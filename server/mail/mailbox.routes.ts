@@ -1,17 +1,17 @@
 import { Router } from 'express';
 import { mailboxQuerySchema } from '@shared/api/mailbox.ts';
 import { idParamsSchema } from '@shared/api/params.ts';
-import type { Env } from '@server/config/env.ts';
+import { mailboxEnabled, type Env } from '@server/config/env.ts';
 import type { MailboxReader } from './mailbox-reader.ts';
 import { clearMailbox, getMailboxMessage, listMailbox } from './mailbox.service.ts';
 
 /**
- * The development mailbox: what the local fake SMTP server captured. In production the router
- * answers nothing, so these paths get the same 404 as any unknown API route.
+ * The development mailbox: what the local fake SMTP server captured. When it is off (by default
+ * in production) the router answers nothing, so these paths get the same 404 as any unknown route.
  */
 export function mailboxRouter(env: Env, reader: MailboxReader): Router {
   const router = Router();
-  if (env.NODE_ENV === 'production') return router;
+  if (!mailboxEnabled(env)) return router;
 
   router.get('/', async (req, res) => {
     res.json(await listMailbox(reader, mailboxQuerySchema.parse(req.query)));

@@ -128,6 +128,19 @@ describe('GET /api/dev/mailbox', () => {
     expect(fake.messages()).toHaveLength(1);
   });
 
+  it('is there in production when MAILBOX=on, as npm start sets it beside the fake SMTP server', async () => {
+    await send('Invitation');
+    const prodUrl = await serveApp({
+      NODE_ENV: 'production',
+      MAILBOX: 'on',
+      SESSION_SECRET: 'a-production-secret-for-this-test',
+      FAKE_SMTP_HTTP_PORT: String(fake.httpPort),
+    });
+    const res = await fetch(`${prodUrl}/api/dev/mailbox`);
+    expect(res.status).toBe(200);
+    expect(mailboxPageSchema.parse(await res.json()).total).toBe(1);
+  });
+
   it('says so when the fake SMTP server is not running', async () => {
     const url = await serveApp({
       NODE_ENV: 'development',
