@@ -22,4 +22,5 @@ export const paths = {
     `/teams/${teamSlug}/routines/${routineId}/promotions`,
   teamAdmin: (teamSlug: string) => `/teams/${teamSlug}/team`,
   mailbox: () => '/dev/mailbox',
+  invitation: (token: string) => `/invitations/${encodeURIComponent(token)}`,
 };

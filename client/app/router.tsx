@@ -82,6 +82,12 @@ export const router = createBrowserRouter([
         ],
       },
       {
+        path: 'invitations/:token',
+        lazy: async () => ({
+          Component: (await import('../features/invitations/invitation-page.tsx')).default,
+        }),
+      },
+      {
         path: 'dev/mailbox',
         lazy: async () => ({
           Component: (await import('../features/mailbox/mailbox-page.tsx')).default,
