@@ -22,6 +22,9 @@ export function PlotFigure({
       style: { background: 'transparent', fontFamily: 'var(--font-mono)', fontSize: '11px' },
       ...options,
     });
+    // Plot names its mark groups with aria-label; give them a role that permits one.
+    for (const group of chart.querySelectorAll('g[aria-label]'))
+      group.setAttribute('role', 'group');
     ref.current?.replaceChildren(chart);
     return () => chart.remove();
   }, [options]);

@@ -32,7 +32,7 @@ export function LineCommentPanel({
   const typed = Number(typedLine);
   const typedValid = Number.isInteger(typed) && typed >= 1 && typed <= lines.length;
   return (
-    <aside aria-labelledby="line-comments-title" className="space-y-4">
+    <aside aria-labelledby="line-comments-title" className="max-w-3xl space-y-4">
       <h3 id="line-comments-title" className="font-semibold">
         Line comments on revision {revisionNumber}
       </h3>

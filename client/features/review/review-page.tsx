@@ -196,7 +196,7 @@ function DiffWithComments({
   if (incumbent.isError) return <ErrorState error={incumbent.error} />;
   const source = revision.data.source;
   return (
-    <div className="grid gap-4 xl:grid-cols-[minmax(0,1fr)_18rem]">
+    <div className="grid gap-4">
       <div>
         <p className="mb-2 text-sm text-ink-soft">
           {incumbent.data

@@ -55,6 +55,18 @@ export function SourceDiff({
   }, [onPickLine]);
 
   const onMount: DiffOnMount = (diff) => {
+    // The read-only original side's input element comes without a name; give both sides one.
+    const sides: [CodeEditor, string][] = [
+      [diff.getOriginalEditor(), 'The incumbent’s source (read only)'],
+      [diff.getModifiedEditor(), 'This revision’s source (read only)'],
+    ];
+    for (const [side, label] of sides) {
+      side.updateOptions({ ariaLabel: label });
+      for (const input of side.getDomNode()?.querySelectorAll('.native-edit-context, textarea') ??
+        []) {
+        if (!input.getAttribute('aria-label')) input.setAttribute('aria-label', label);
+      }
+    }
     const editor = diff.getModifiedEditor();
     editorRef.current = editor;
     editor.onMouseDown((e) => {
@@ -81,10 +93,13 @@ export function SourceDiff({
         options={{
           ...editorOptions,
           readOnly: true,
+          // A plain textarea input, which takes the aria labels below (the EditContext one does not).
+          editContext: false,
           originalEditable: false,
           renderSideBySide: true,
           glyphMargin: true,
-          ariaLabel: 'Source diff: incumbent on the left, candidate on the right',
+          originalAriaLabel: 'The incumbent’s source (read only)',
+          modifiedAriaLabel: 'This revision’s source (read only)',
         }}
       />
     </div>

@@ -4,8 +4,13 @@ import { VerdictForm } from './verdict-form.tsx';
 
 /** Why this person sees no verdict buttons, in plain words; null when they may give one. */
 export function whyNoVerdict(candidate: CandidateDetail, userId: number | null): string | null {
-  if (candidate.permissions.review) return null;
   const latest = candidate.revisions.at(-1);
+  const mine = candidate.reviews.find(
+    (r) => r.revisionId === latest?.id && r.reviewer.id === userId && r.verdict === 'sign-off',
+  );
+  // A second sign-off of the same revision by the same person is refused, so offer none.
+  if (mine) return `You signed off revision ${mine.revisionNumber} already.`;
+  if (candidate.permissions.review) return null;
   if (userId !== null && userId === candidate.author.id) {
     return 'You wrote this candidate, so you cannot sign it off or send it back; another reviewer must.';
   }
@@ -15,10 +20,6 @@ export function whyNoVerdict(candidate: CandidateDetail, userId: number | null):
   if (candidate.state !== 'in-review' && candidate.state !== 'cleared') {
     return `Verdicts are given while a candidate is in review; this one is ${candidateStateLabels[candidate.state]}.`;
   }
-  const mine = candidate.reviews.find(
-    (r) => r.revisionId === latest?.id && r.reviewer.id === userId && r.verdict === 'sign-off',
-  );
-  if (mine) return `You signed off revision ${mine.revisionNumber} already.`;
   return 'You cannot give a verdict on this candidate now.';
 }
 
