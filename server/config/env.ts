@@ -54,8 +54,11 @@ const envFields = z.object({
   // The worker's settings (server/worker.ts); the web process ignores them.
   /** Longest single kernel call before the isolate stops it. */
   TRIAL_CALL_TIMEOUT_MS: z.coerce.number().int().min(50).max(600_000).default(10_000),
-  /** Heap limit of each kernel's isolate. */
-  TRIAL_MEMORY_LIMIT_MB: z.coerce.number().int().min(16).max(4096).default(256),
+  /**
+   * Heap limit of each kernel's isolate; the engine's own default (sandbox/isolate/limits.ts), so a
+   * trial in the worker judges a memory-hungry kernel as the evaluator does.
+   */
+  TRIAL_MEMORY_LIMIT_MB: z.coerce.number().int().min(16).max(4096).default(128),
   /** Time budget per timing size (both kernels together); the engine's default when unset. */
   TRIAL_TIMING_BUDGET_MS: z.coerce.number().int().min(0).max(600_000).optional(),
   /**
