@@ -33,7 +33,7 @@ describe('loadEnv', () => {
     expect(defaults).toMatchObject({
       PGBOSS_SCHEMA: 'pgboss',
       TRIAL_CALL_TIMEOUT_MS: 10_000,
-      TRIAL_MEMORY_LIMIT_MB: 256,
+      TRIAL_MEMORY_LIMIT_MB: 128,
       JOB_MAINTENANCE_SECONDS: 60,
       WORKER_SENDS_EMAIL: true,
       WORKER_STOP_GRACE_SECONDS: 30,
