@@ -2,6 +2,7 @@ import { DiffEditor, type DiffOnMount } from '@monaco-editor/react';
 import { useEffect, useRef } from 'react';
 import type { Comment } from '@shared/api/comments.ts';
 import { editorOptions, monaco } from '@client/components/monaco/monaco-setup.ts';
+import { diffThemeName } from './diff-theme.ts';
 
 type CodeEditor = monaco.editor.ICodeEditor;
 
@@ -55,18 +56,29 @@ export function SourceDiff({
   }, [onPickLine]);
 
   const onMount: DiffOnMount = (diff) => {
-    // The read-only original side's input element comes without a name; give both sides one.
+    // The read-only sides' input elements come without a name, and Monaco may replace them
+    // later; name every one of them whenever the editor's DOM changes.
     const sides: [CodeEditor, string][] = [
       [diff.getOriginalEditor(), 'The incumbent’s source (read only)'],
       [diff.getModifiedEditor(), 'This revision’s source (read only)'],
     ];
-    for (const [side, label] of sides) {
-      side.updateOptions({ ariaLabel: label });
-      for (const input of side.getDomNode()?.querySelectorAll('.native-edit-context, textarea') ??
-        []) {
-        if (!input.getAttribute('aria-label')) input.setAttribute('aria-label', label);
+    const nameInputs = () => {
+      for (const [side, label] of sides) {
+        const inputs = side.getDomNode()?.querySelectorAll('.native-edit-context, textarea') ?? [];
+        for (const input of inputs) {
+          if (input.getAttribute('aria-label') !== label) input.setAttribute('aria-label', label);
+        }
       }
-    }
+    };
+    for (const [side, label] of sides) side.updateOptions({ ariaLabel: label });
+    nameInputs();
+    const observer = new MutationObserver(nameInputs);
+    observer.observe(diff.getContainerDomNode(), {
+      childList: true,
+      subtree: true,
+      attributeFilter: ['aria-label'],
+    });
+    diff.onDidDispose(() => observer.disconnect());
     const editor = diff.getModifiedEditor();
     editorRef.current = editor;
     editor.onMouseDown((e) => {
@@ -86,6 +98,7 @@ export function SourceDiff({
         original={original}
         modified={modified}
         language="typescript"
+        theme={diffThemeName}
         originalModelPath={`file:///review/${modelKey}/incumbent.ts`}
         modifiedModelPath={`file:///review/${modelKey}/candidate.ts`}
         loading={<p className="p-4 text-ink-soft">Loading the diff…</p>}
