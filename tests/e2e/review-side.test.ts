@@ -272,6 +272,12 @@ describe('the review side of the web client in Chromium', { timeout: 90_000 }, (
     await expect
       .poll(() => page.getByTestId('mailbox-message').getByRole('heading').textContent())
       .toBe(newest.subject);
+    // The HTML part is shown inside a sandboxed frame; its words must be there to read.
+    await expect
+      .poll(() =>
+        page.frameLocator('[data-testid="mailbox-message"] iframe').locator('body').innerText(),
+      )
+      .toContain('Tragwerk Frame Analysis');
     await look(page, 'mailbox');
   });
 

@@ -89,6 +89,13 @@ function MatrixSetEditor({ teamId, setId }: { teamId: number; setId: number }) {
           </tr>
         </thead>
         <tbody>
+          {s.items.length === 0 ? (
+            <tr>
+              <td colSpan={4} className="py-2 text-ink-soft">
+                No matrices in this set yet; add a generated one or a file below.
+              </td>
+            </tr>
+          ) : null}
           {s.items.map((item) => (
             <tr key={item.position} className="border-b border-rule/60">
               <td className="py-1 pr-4 font-mono text-ink-soft">{item.position + 1}</td>
