@@ -86,7 +86,7 @@ export default function MailboxPage() {
           Invitations, review requests, verdicts and promotions send e-mail; they appear here.
         </EmptyState>
       ) : (
-        <div className="grid gap-6 lg:grid-cols-[minmax(0,2fr)_minmax(0,3fr)]">
+        <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
           <div>
             <table className="w-full text-sm" data-testid="mailbox-list">
               <caption className="sr-only">Captured messages, newest first</caption>
@@ -103,7 +103,7 @@ export default function MailboxPage() {
                     key={m.id}
                     className={`border-b border-rule/60 align-top ${openId === m.id ? 'bg-paper-deep' : ''}`}
                   >
-                    <td className="py-1.5 pr-3 break-all">{m.to.join(', ')}</td>
+                    <td className="py-1.5 pr-3 break-words">{m.to.join(', ')}</td>
                     <td className="py-1.5 pr-3">
                       <button
                         type="button"
