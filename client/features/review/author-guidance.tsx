@@ -55,7 +55,7 @@ export function AuthorGuidance({
       ) : null}
       {needsWork ? (
         <p className="mt-2 text-sm text-ink-soft">
-          The line comments beside the diff below say where.
+          The line comments in and under the diff below say where.
         </p>
       ) : null}
       {candidate.permissions.revise ? (
