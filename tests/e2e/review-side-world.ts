@@ -35,6 +35,8 @@ export interface SignedIn {
  */
 export interface ReviewSideWorld {
   app: RunningApp;
+  /** The world's own database. */
+  databaseUrl: string;
   env: Env;
   smtp: FakeSmtpServer;
   queue: FakeTrialQueue;
@@ -98,6 +100,7 @@ export async function startReviewSideWorld(
 
   return {
     app,
+    databaseUrl,
     env,
     smtp,
     queue,

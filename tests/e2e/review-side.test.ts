@@ -8,6 +8,7 @@ import { routines } from '@server/db/schema/routines.ts';
 import { safetyCaution } from '@server/mail/safety-caution.ts';
 import { safetyCaution as shownCaution } from '@client/features/promotions/safety-caution.ts';
 import { launchChromium, recordForeignRequests } from '@tests/helpers/browser.ts';
+import { startTestApp } from '@tests/helpers/test-app.ts';
 import {
   createRoutine,
   goodKernel,
@@ -279,6 +280,25 @@ describe('the review side of the web client in Chromium', { timeout: 90_000 }, (
       )
       .toContain('Tragwerk Frame Analysis');
     await look(page, 'mailbox');
+  });
+
+  it('says plainly that a production server has no mailbox', async () => {
+    const production = await startTestApp(world.databaseUrl, clientDir, {
+      MAILBOX: 'off',
+    });
+    try {
+      const page = await browser.newPage({ bypassCSP: true });
+      await page.goto(`${production.url}/dev/mailbox`, { waitUntil: 'networkidle' });
+      await expect
+        .poll(() => page.getByTestId('mailbox-unavailable').textContent())
+        .toContain('keeps no mailbox');
+      expect(await page.getByTestId('mailbox-list').count()).toBe(0);
+      await page.screenshot({ path: path.join(screenshots, 'b-mailbox-production.png') });
+      expect(await seriousAxeViolations(page)).toEqual([]);
+      await page.close();
+    } finally {
+      await production.close();
+    }
   });
 
   it('sent nothing to another host and raised no page errors', () => {

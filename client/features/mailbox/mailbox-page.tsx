@@ -61,10 +61,10 @@ export default function MailboxPage() {
             className="rounded border border-rule bg-paper-deep p-4"
             data-testid="mailbox-unavailable"
           >
-            <p className="font-medium">This server runs in production, so it has no mailbox.</p>
+            <p className="font-medium">This server keeps no mailbox: it runs in production.</p>
             <p className="mt-1 text-sm text-ink-soft">
               The mailbox exists only in development and tests, where e-mail goes to a local fake
-              SMTP server. In production, messages go to the real addresses.
+              SMTP server. Here messages go to their real addresses and cannot be read on this page.
             </p>
           </div>
         </>
