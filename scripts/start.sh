@@ -28,7 +28,10 @@ fi
 
 pids=()
 cleanup() {
-  for pid in "${pids[@]}"; do kill "$pid" 2>/dev/null || true; done
+  for pid in "${pids[@]}"; do
+    pkill -TERM -P "$pid" 2>/dev/null || true
+    kill "$pid" 2>/dev/null || true
+  done
   wait 2>/dev/null || true
 }
 trap cleanup EXIT INT TERM
@@ -43,7 +46,17 @@ if [ "${FAKE_SMTP_PORT:-2525}" != "0" ]; then
   node dist/server/fake-smtp.js &
   pids+=($!)
 fi
-node "${NODE_FLAGS[@]}" dist/server/worker.js &
+# A worker ends itself with status 75 when a trial is stuck in an isolate that ignores its limits
+# (server/jobs/one-trial-at-a-time.ts); start a fresh one then, so the queue keeps moving.
+run_worker() {
+  while true; do
+    node "${NODE_FLAGS[@]}" dist/server/worker.js && return 0
+    local status=$?
+    if [ "$status" -ne 75 ]; then return "$status"; fi
+    log "the worker ended itself after a stuck trial; starting a fresh one"
+  done
+}
+run_worker &
 pids+=($!)
 node "${NODE_FLAGS[@]}" dist/server/main.js &
 pids+=($!)

@@ -1,6 +1,7 @@
 import type PgBoss from 'pg-boss';
 import { runDriftChecks } from '@server/drift/drift-checks.service.ts';
-import { TRIAL_DEAD_JOB, type TrialJobData } from './pg-boss-queue.ts';
+import { oneTrialAtATime } from './one-trial-at-a-time.ts';
+import { defaultTrialJobOptions, TRIAL_DEAD_JOB, type TrialJobData } from './pg-boss-queue.ts';
 import { runTrialJob, type TrialJobDeps, type TrialJobResult } from './run-trial-job.ts';
 import { markTrialGaveUp } from './trial-gave-up.ts';
 import { DRIFT_JOB, TRIAL_JOB, type TrialQueue } from './trial-queue.ts';
@@ -9,6 +10,13 @@ export interface TrialWorkerDeps extends TrialJobDeps {
   boss: PgBoss;
   /** Where drift checks put the trials they create (the same pg-boss queue). */
   queue: TrialQueue;
+  /**
+   * Called once when a trial runs past its job's expiry (one-trial-at-a-time.ts); the worker
+   * process ends itself then. Default: an error in the log.
+   */
+  onStuckTrial?: (trialId: number) => void;
+  /** When a trial counts as stuck, in ms: its job's expiry (default the queue's default). */
+  stuckAfterMs?: number;
 }
 
 /**
@@ -16,18 +24,19 @@ export interface TrialWorkerDeps extends TrialJobDeps {
  * quiet core, so a worker never runs two trials), its dead letter, and `drift.check`.
  *
  * pg-boss stops waiting for a handler when the job's expiry passes (and retries the job) but
- * cannot stop the handler itself; the chain below makes the next trial wait until the
- * abandoned one has ended, so two trials never share the core. The abandoned try's results are
- * then either written first (and the retry skips the completed trial) or discarded.
+ * cannot stop the handler itself; the next trial waits until the abandoned one has ended, so two
+ * trials never share the core, and one still running at its expiry is reported as stuck. The
+ * abandoned try's results are then either written first (and the retry skips the completed
+ * trial) or discarded.
  */
 export async function startTrialWorker(deps: TrialWorkerDeps): Promise<void> {
   const { boss } = deps;
-  let chain: Promise<unknown> = Promise.resolve();
-  const oneAtATime = (trialId: number): Promise<TrialJobResult> => {
-    const run = chain.then(() => runTrialJob(deps, trialId));
-    chain = run.catch(() => {});
-    return run;
-  };
+  const oneAtATime = oneTrialAtATime<TrialJobResult>((trialId) => runTrialJob(deps, trialId), {
+    stuckAfterMs: deps.stuckAfterMs ?? defaultTrialJobOptions.expireInSeconds * 1000,
+    onStuck:
+      deps.onStuckTrial ??
+      ((trialId) => deps.logger.error({ trialId }, 'trial still running after its job expired')),
+  });
 
   await boss.work<TrialJobData>(
     TRIAL_JOB,

@@ -36,6 +36,13 @@ export async function startWorkerProcess(env: Env, logger: Logger): Promise<Runn
     db: database.db,
     env,
     logger,
+    stuckAfterMs: queue.trialJobs.expireInSeconds * 1000,
+    // Only ending the process stops an isolate that ignores its limits; the job's retry (or its
+    // dead letter) records the trial, and the supervisor (npm start's loop) starts a fresh worker.
+    onStuckTrial: (trialId) => {
+      logger.fatal({ trialId }, 'trial stuck past its job expiry; the worker exits');
+      process.exit(75);
+    },
     limits: {
       callTimeoutMs: env.TRIAL_CALL_TIMEOUT_MS,
       memoryLimitMb: env.TRIAL_MEMORY_LIMIT_MB,

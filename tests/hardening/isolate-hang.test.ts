@@ -30,8 +30,11 @@ describe('a heap hog that isolated-vm cannot stop', () => {
   // KNOWN FAULT, not yet fixed: closures chained over 2 MB arrays drive the isolate to its heap
   // limit in a way that neither the call timeout nor Isolate.dispose() ends (isolated-vm 5.0.4,
   // Node 20): the isolate's thread spins and the call never settles, so only killing the process
-  // stops it. `it.fails` keeps the suite green while the fault stands; when a fix lands (a trial
-  // process with a wall-clock deadline, say) this test fails: turn it into `it`.
+  // stops it. The worker copes by ending itself when the trial outlives its job's expiry
+  // (server/jobs/one-trial-at-a-time.ts), and npm start starts a fresh one; the job's retries and
+  // then its dead letter record the trial. `it.fails` keeps the suite green while the engine's
+  // fault stands; when a fix lands (a call deadline that can stop the isolate's thread, say) this
+  // test fails: turn it into `it`.
   it.fails(
     'ends the call with a status within 20 s',
     async () => {
