@@ -22,8 +22,12 @@ async function load(source: string) {
 
 describe('timing verdicts on real kernels', () => {
   it('finds no clear difference between a kernel and itself in the large majority of repeats', async () => {
+    // One loaded instance in both roles: two isolates of the same source can settle on code of
+    // slightly different speed (a few per cent, lasting), which is a real difference the
+    // benchmarks/ calibration measures; here only the method is on trial (pairing, call order,
+    // interval and margin), so both roles share one instance and any verdict is a false alarm.
     const a = await load(plain);
-    const b = await load(plain);
+    const b = a;
     const verdicts: string[] = [];
     const ratios: number[] = [];
     for (let repeat = 0; repeat < 6; repeat++) {
@@ -40,7 +44,6 @@ describe('timing verdicts on real kernels', () => {
       ratios.push(...sizes.map((s) => s.ratio ?? Number.NaN));
     }
     a.dispose();
-    b.dispose();
     const clear = verdicts.filter((v) => v === 'no clear difference').length;
     expect(verdicts).toHaveLength(12);
     expect(clear).toBeGreaterThanOrEqual(8);
