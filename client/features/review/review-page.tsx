@@ -16,7 +16,7 @@ import type { CandidateDetail } from '@shared/api/candidates.ts';
 import type { Comment } from '@shared/api/comments.ts';
 import { routineTitles } from '@shared/routines.ts';
 import { AuthorGuidance } from './author-guidance.tsx';
-import { CandidateStateBadge } from './candidate-state-badge.tsx';
+import { CandidateStateBadge } from '@client/features/candidates/state-badge.tsx';
 import { CommentForm } from './comment-form.tsx';
 import { CommentList } from './comment-list.tsx';
 import { commentQueries } from './review.queries.ts';
