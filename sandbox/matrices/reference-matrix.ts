@@ -1,33 +1,8 @@
 import type { Expectation, RoutineSlug } from '@shared/routines.ts';
 
-/** The generated families (issue: "Reference matrices"). */
-export const familySlugs = [
-  'uniform',
-  'normal',
-  'diagonally-dominant',
-  'spd-random',
-  'prescribed-condition',
-  'hilbert',
-  'pascal',
-  'lehmer',
-  'minij',
-  'moler',
-  'frank',
-  'kahan',
-  'worst-growth',
-  'poisson-1d',
-  'poisson-2d',
-  'vandermonde',
-  'graded',
-  'near-overflow',
-  'near-underflow',
-  'needs-row-exchange',
-  'singular',
-  'nearly-singular',
-  'indefinite',
-  'tall-random',
-] as const;
-export type FamilySlug = (typeof familySlugs)[number];
+// The family slugs live in shared/ so that the client can offer them too.
+import { familySlugs, type FamilySlug } from '@shared/matrix-families.ts';
+export { familySlugs, type FamilySlug };
 
 /** A recipe for one generated matrix: the same recipe gives the same bits on every machine. */
 export interface MatrixSpec {
