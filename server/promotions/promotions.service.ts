@@ -18,7 +18,7 @@ import { clearanceOf } from '@server/candidates/clearance.ts';
 import { contactOf, teamAddresses } from '@server/candidates/team-recipients.repo.ts';
 import { promotedEmail } from '@server/mail/messages/incumbent-emails.ts';
 import { enqueueEmail } from '@server/mail/outbox.ts';
-import { safetyCaution } from '@server/mail/safety-caution.ts';
+import { safetyCaution } from '@shared/safety-caution.ts';
 import { toPromotion } from './promotion-mapping.ts';
 import { changeIncumbent, snapshotOfTrial } from './promotion-record.ts';
 import { requirePromote } from './promotions.policy.ts';

@@ -8,7 +8,7 @@ import { lockRoutine } from '@server/candidates/candidates.repo.ts';
 import { contactOf, teamAddresses, teamNames } from '@server/candidates/team-recipients.repo.ts';
 import { reinstatedEmail } from '@server/mail/messages/incumbent-emails.ts';
 import { enqueueEmail } from '@server/mail/outbox.ts';
-import { safetyCaution } from '@server/mail/safety-caution.ts';
+import { safetyCaution } from '@shared/safety-caution.ts';
 import { toPromotion } from './promotion-mapping.ts';
 import { changeIncumbent } from './promotion-record.ts';
 import { requirePromote } from './promotions.policy.ts';

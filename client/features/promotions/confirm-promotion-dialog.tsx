@@ -3,7 +3,7 @@ import { useEffect, useRef } from 'react';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
 import { promoteSchema } from '@shared/api/promotions.ts';
-import { safetyCaution } from './safety-caution.ts';
+import { safetyCaution } from '@shared/safety-caution.ts';
 
 type NoteInput = z.input<typeof promoteSchema>;
 type NoteOutput = z.output<typeof promoteSchema>;

@@ -1,7 +1,7 @@
 import type { Env } from '@server/config/env.ts';
 import { composeEmail, type EmailContent } from '../compose-email.ts';
 import { logbookLink, type RoutineRef } from '../email-links.ts';
-import { safetyCaution } from '../safety-caution.ts';
+import { safetyCaution } from '@shared/safety-caution.ts';
 
 export interface IncumbentChange extends RoutineRef {
   routineTitle: string;

@@ -10,7 +10,7 @@ import {
   sentBackEmail,
   signedOffEmail,
 } from '@server/mail/messages/review-emails.ts';
-import { safetyCaution } from '@server/mail/safety-caution.ts';
+import { safetyCaution } from '@shared/safety-caution.ts';
 
 const env = loadEnv({ PUBLIC_URL: 'https://stablehand.frame.example/' });
 /** A value that breaks HTML unless escaped, with a line break that must not reach a subject. */

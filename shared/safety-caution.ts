@@ -1,7 +1,6 @@
 /**
- * The safety caution of the product brief, shown word for word before a kernel is promoted or
- * reinstated. The server sends the same text with every promotion (server/mail/safety-caution.ts);
- * tests/e2e/promote.test.ts checks that the two agree.
+ * The safety caution (product.md), word for word: shown before a kernel is promoted or
+ * reinstated, sent with every promotion and reinstatement, and in the README.
  */
 export const safetyCaution =
   "Passing Stablehand's checks is evidence, not certification. Kernels used in safety-relevant " +
