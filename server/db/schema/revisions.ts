@@ -16,6 +16,12 @@ export const revisions = pgTable(
     /** SHA-256 of the source, hex. */
     sourceHash: text('source_hash').notNull(),
     diagnostics: jsonb('diagnostics').$type<KernelDiagnostic[]>().notNull(),
+    /**
+     * The checker that produced `diagnostics`, such as `TypeScript 5.9.3`; null for revisions
+     * stored before the check was recorded. A trial skips its own check only for a revision
+     * that passed with the checker it would use itself.
+     */
+    checkedWith: text('checked_with'),
     createdBy: integer('created_by')
       .notNull()
       .references(() => users.id),

@@ -25,6 +25,8 @@ export const trialMatrixResults = pgTable(
     n: integer('n').notNull(),
     condition: doublePrecision('condition'),
     conditionKind: text('condition_kind'),
+    /** The reference solver's growth factor on this matrix; null where the routine has none. */
+    referenceGrowth: doublePrecision('reference_growth'),
     expected: text('expected').notNull(),
     referenceTrusted: boolean('reference_trusted').notNull(),
     note: text('note').notNull(),
