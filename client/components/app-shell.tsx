@@ -6,6 +6,7 @@ import { signInHref } from '@client/features/auth/sign-in-link.ts';
 import { useCurrentTeam } from '@client/features/teams/use-current-team.ts';
 import { mailboxAvailableQuery } from './mailbox-available.ts';
 import { ServiceStatus } from './service-status.tsx';
+import { teamSection } from './team-section.ts';
 import { TeamSwitcher } from './team-switcher.tsx';
 import { UserMenu } from './user-menu.tsx';
 
@@ -19,6 +20,7 @@ export function AppShell() {
   const { team, teamSlug } = useCurrentTeam();
   const { pathname } = useLocation();
   const navTeam = team?.slug ?? (teamSlug || me.data?.teams[0]?.slug);
+  const section = navTeam ? teamSection(pathname, navTeam) : null;
 
   return (
     <div className="flex min-h-screen flex-col">
@@ -40,15 +42,27 @@ export function AppShell() {
             </Link>
             {me.data && navTeam ? (
               <nav aria-label="Main" className="flex gap-4 text-sm">
-                <NavLink to={paths.team(navTeam)} className={navClass}>
+                <Link
+                  to={paths.team(navTeam)}
+                  className={navClass({ isActive: section === 'routines' })}
+                  aria-current={section === 'routines' ? 'page' : undefined}
+                >
                   Routines
-                </NavLink>
-                <NavLink to={paths.logbook(navTeam)} className={navClass}>
+                </Link>
+                <Link
+                  to={paths.logbook(navTeam)}
+                  className={navClass({ isActive: section === 'logbook' })}
+                  aria-current={section === 'logbook' ? 'page' : undefined}
+                >
                   Logbook
-                </NavLink>
-                <NavLink to={paths.teamAdmin(navTeam)} className={navClass}>
+                </Link>
+                <Link
+                  to={paths.teamAdmin(navTeam)}
+                  className={navClass({ isActive: section === 'team' })}
+                  aria-current={section === 'team' ? 'page' : undefined}
+                >
                   Team
-                </NavLink>
+                </Link>
                 {mailbox.data ? (
                   <NavLink to={paths.mailbox()} className={navClass}>
                     Mailbox

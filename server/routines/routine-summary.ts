@@ -73,6 +73,13 @@ export async function summarizeRoutines(db: Db, rows: RoutineRow[]): Promise<Rou
       contract: r.contract,
       matrixSetId: r.matrixSetId,
       incumbentRevisionId: r.incumbentRevisionId,
+      incumbent: promotion
+        ? {
+            candidateId: promotion.candidateId,
+            candidateTitle: promotion.candidateTitle,
+            revisionNumber: promotion.revisionNumber,
+          }
+        : null,
       headline: promotion ? headlineOf(promotion.metricsSnapshot) : null,
       openCandidates: countsByRoutine.get(r.id) ?? zeroCounts(),
     };

@@ -93,9 +93,14 @@ export function incumbentPromotions(db: Db, routineIds: number[], revisionIds: n
       createdAt: promotions.createdAt,
       promotedBy: promotions.promotedBy,
       promoterLogin: users.login,
+      revisionNumber: revisions.number,
+      candidateId: candidates.id,
+      candidateTitle: candidates.title,
     })
     .from(promotions)
     .innerJoin(users, eq(users.id, promotions.promotedBy))
+    .innerJoin(revisions, eq(revisions.id, promotions.revisionId))
+    .innerJoin(candidates, eq(candidates.id, revisions.candidateId))
     .where(
       and(inArray(promotions.routineId, routineIds), inArray(promotions.revisionId, revisionIds)),
     )

@@ -47,6 +47,14 @@ export const routineSummarySchema = z.object({
   contract: routineSlugSchema,
   matrixSetId: z.number().int().positive(),
   incumbentRevisionId: z.number().int().positive().nullable(),
+  /** The incumbent's candidate and revision; null while the routine has no incumbent. */
+  incumbent: z
+    .object({
+      candidateId: z.number().int().positive(),
+      candidateTitle: z.string(),
+      revisionNumber: z.number().int().positive(),
+    })
+    .nullable(),
   /** Null while the routine has no incumbent. */
   headline: incumbentHeadlineSchema.nullable(),
   openCandidates: openCandidateCountsSchema,

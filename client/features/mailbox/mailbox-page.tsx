@@ -86,15 +86,14 @@ export default function MailboxPage() {
           Invitations, review requests, verdicts and promotions send e-mail; they appear here.
         </EmptyState>
       ) : (
-        <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
+        <div className="grid gap-6 lg:grid-cols-[minmax(0,5fr)_minmax(0,6fr)]">
           <div>
             <table className="w-full text-sm" data-testid="mailbox-list">
               <caption className="sr-only">Captured messages, newest first</caption>
               <thead className="border-b border-rule text-left text-ink-soft">
                 <tr>
-                  <th className="py-1 pr-3 font-medium">To</th>
-                  <th className="py-1 pr-3 font-medium">Subject</th>
-                  <th className="py-1 font-medium">Received</th>
+                  <th className="py-1 pr-3 font-medium">Message</th>
+                  <th className="py-1 text-right font-medium">Received</th>
                 </tr>
               </thead>
               <tbody>
@@ -103,18 +102,23 @@ export default function MailboxPage() {
                     key={m.id}
                     className={`border-b border-rule/60 align-top ${openId === m.id ? 'bg-paper-deep' : ''}`}
                   >
-                    <td className="py-1.5 pr-3 break-words">{m.to.join(', ')}</td>
                     <td className="py-1.5 pr-3">
                       <button
                         type="button"
                         onClick={() => setOpenId(m.id)}
                         aria-pressed={openId === m.id}
-                        className="text-left underline"
+                        className="block text-left font-medium underline decoration-rule underline-offset-2 hover:decoration-ink"
                       >
                         {m.subject || '(no subject)'}
                       </button>
+                      <span
+                        className="block truncate text-xs text-ink-soft"
+                        title={m.to.join(', ')}
+                      >
+                        to {m.to.join(', ')}
+                      </span>
                     </td>
-                    <td className="py-1.5 whitespace-nowrap text-ink-soft">
+                    <td className="py-1.5 text-right text-xs whitespace-nowrap text-ink-soft">
                       {formatDateTime(m.date)}
                     </td>
                   </tr>

@@ -69,7 +69,19 @@ export function RoutinesPage() {
                   </span>
                 </td>
                 <td className="py-3 pr-4 text-sm">
-                  {r.incumbentRevisionId ? (
+                  {r.incumbent ? (
+                    <>
+                      <Link
+                        to={paths.candidate(team.slug, r.incumbent.candidateId)}
+                        className="underline decoration-rule underline-offset-4 hover:decoration-ink"
+                      >
+                        {r.incumbent.candidateTitle}
+                      </Link>
+                      <span className="block text-xs text-ink-soft">
+                        revision {r.incumbent.revisionNumber}
+                      </span>
+                    </>
+                  ) : r.incumbentRevisionId ? (
                     'in production'
                   ) : (
                     <span className="text-ink-soft">none yet</span>

@@ -47,7 +47,9 @@ export function TimingPlot({ timing }: { timing: readonly TimingReport[] }) {
           width,
           height: 60 + rows.length * 42,
           marginLeft: 64,
-          marginRight: 150,
+          // The labels sit in the right margin, past the axis's end, so a large ratio cannot
+          // push its label off the figure.
+          marginRight: 200,
           style: {
             background: 'transparent',
             fontFamily: 'IBM Plex Mono, monospace',
@@ -80,9 +82,9 @@ export function TimingPlot({ timing }: { timing: readonly TimingReport[] }) {
             }),
             Plot.text(rows, {
               y: 'n',
-              x: 'hi',
+              frameAnchor: 'right',
               text: (d: Row) => `${d.ratio.toFixed(2)}× ${d.verdict}`,
-              dx: 8,
+              dx: 10,
               textAnchor: 'start',
               fill: '#1d2b45',
             }),

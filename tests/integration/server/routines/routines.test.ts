@@ -164,6 +164,7 @@ describe('routines', () => {
     expect(page.items[0]).toMatchObject({
       id: routine.id,
       incumbentRevisionId: incumbent,
+      incumbent: { candidateTitle: 'Blocked Cholesky (promoted)', revisionNumber: 1 },
       headline: { worstFactorRatio: 2.5, timingN: 128, timingMedianMs: 3.25 },
       openCandidates: {
         drafting: 0,
