@@ -8,6 +8,9 @@ await build({
     worker: 'server/worker.ts',
     'fake-github': 'server/fake-github/main.ts',
     'fake-smtp': 'server/fake-smtp/main.ts',
+    // Loaded by the type-check pool as a worker thread beside the bundle that uses it
+    // (sandbox/isolate/type-check-pool.ts, typeCheckWorkerUrl).
+    'type-check-worker': 'sandbox/isolate/type-check-worker.ts',
   },
   outdir: 'dist/server',
   bundle: true,

@@ -4,6 +4,7 @@ import { loadEnv } from './config/env.ts';
 import { createDatabase } from './db/client.ts';
 import { createLogger } from './http/logger.ts';
 import { createPgBossQueue } from './jobs/pg-boss-queue.ts';
+import { closeKernelCheck, warmKernelCheck } from './kernel-check/kernel-check-pool.ts';
 
 const env = loadEnv();
 const logger = createLogger(env.LOG_LEVEL);
@@ -20,15 +21,16 @@ const server = app.listen(env.PORT, env.HOST, () => {
   const { port } = server.address() as AddressInfo;
   logger.info({ port }, 'listening');
   console.log(`Stablehand is serving at http://${env.HOST}:${port}/`);
+  // The type-check threads parse TypeScript's lib files now rather than on the first submission.
+  warmKernelCheck().catch((err: unknown) => logger.warn({ err }, 'type-check threads not warmed'));
 });
 
 function shutdown(signal: string) {
   logger.info({ signal }, 'shutting down');
   server.close(() => {
-    void queue
-      .stop()
-      .catch(() => {})
-      .finally(() => database.pool.end().finally(() => process.exit(0)));
+    void Promise.allSettled([queue.stop(), closeKernelCheck()]).finally(() =>
+      database.pool.end().finally(() => process.exit(0)),
+    );
   });
   setTimeout(() => process.exit(0), 5000).unref();
 }

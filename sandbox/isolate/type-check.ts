@@ -5,11 +5,14 @@ import { contractExports, contractTexts } from '@shared/contracts/contract-texts
 import { kernelImportDiagnostics } from '@sandbox/isolate/kernel-imports.ts';
 import { defaultKernelLimits, sourceSizeDiagnostic } from '@sandbox/isolate/limits.ts';
 import { createInMemoryHost, kernelCompilerOptions } from '@sandbox/isolate/type-check-host.ts';
+import { typeCheckerName } from '@sandbox/isolate/type-check-version.ts';
 
 export interface TypeCheckOutcome {
   /** Errors only, sorted by position; empty when the kernel satisfies the contract. */
   diagnostics: KernelDiagnostic[];
   ms: number;
+  /** The checker that ran (`TypeScript 5.9.3`), stored with the revision. */
+  checkedWith: string;
 }
 
 const KERNEL = '/kernel.ts';
@@ -142,7 +145,9 @@ export function typeCheckKernel(
     source,
     options.maxSourceBytes ?? defaultKernelLimits.maxSourceBytes,
   );
-  if (tooLarge) return { diagnostics: [tooLarge], ms: performance.now() - start };
+  if (tooLarge) {
+    return { diagnostics: [tooLarge], ms: performance.now() - start, checkedWith: typeCheckerName };
+  }
   const exportName = contractExports[routine];
   const contract = contractTexts[routine];
   const files = new Map([
@@ -162,5 +167,5 @@ export function typeCheckKernel(
     .filter((d): d is KernelDiagnostic => d !== null);
   diagnostics.push(...kernelImportDiagnostics(program.getSourceFile(KERNEL)!));
   diagnostics.sort((a, b) => a.line - b.line || a.column - b.column);
-  return { diagnostics, ms: performance.now() - start };
+  return { diagnostics, ms: performance.now() - start, checkedWith: typeCheckerName };
 }

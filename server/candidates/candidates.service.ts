@@ -6,9 +6,9 @@ import type {
   ListCandidatesQuery,
   Submission,
 } from '@shared/api/candidates.ts';
-import { typeCheckKernel } from '@sandbox/isolate/type-check.ts';
 import type { CurrentUser } from '@server/auth/current-user.ts';
 import type { Db } from '@server/db/client.ts';
+import { checkSubmittedKernel } from '@server/kernel-check/kernel-check-pool.ts';
 import type { TrialQueue } from '@server/jobs/trial-queue.ts';
 import { recordRevision } from '@server/revisions/revision-submission.ts';
 import { finishSubmission } from '@server/revisions/revisions.service.ts';
@@ -50,7 +50,7 @@ export async function createCandidate(
   input: CreateCandidate,
 ): Promise<Submission> {
   const { routine } = await routineAccess(db, user, routineId);
-  const { diagnostics } = typeCheckKernel(input.source, routine.contract);
+  const { diagnostics, checkedWith } = await checkSubmittedKernel(input.source, routine.contract);
   const submitted = await db.transaction(async (tx) => {
     const candidate = await insertCandidate(tx, {
       routineId,
@@ -64,6 +64,7 @@ export async function createCandidate(
       actorId: user.id,
       source: input.source,
       diagnostics,
+      checkedWith,
       action: 'candidate.submitted',
     });
   });

@@ -19,6 +19,8 @@ export interface RevisionSubmission {
   source: string;
   /** The type check's findings; any finding keeps the revision from running. */
   diagnostics: KernelDiagnostic[];
+  /** The checker that found them (`TypeScript 5.9.3`). */
+  checkedWith: string;
   /** What the audit log calls it: `candidate.submitted` or `candidate.revised`. */
   action: string;
 }
@@ -52,6 +54,7 @@ export async function recordRevision(
     source: input.source,
     sourceHash: sourceHash(input.source),
     diagnostics,
+    checkedWith: input.checkedWith,
     createdBy: input.actorId,
   });
   let trial: TrialRow | null = null;

@@ -52,6 +52,7 @@ export async function insertNextRevision(
     source: string;
     sourceHash: string;
     diagnostics: KernelDiagnostic[];
+    checkedWith: string;
     createdBy: number;
   },
 ): Promise<RevisionRow> {

@@ -1,8 +1,8 @@
 import type { Submission } from '@shared/api/candidates.ts';
 import type { CreateRevision, Revision } from '@shared/api/revisions.ts';
-import { typeCheckKernel } from '@sandbox/isolate/type-check.ts';
 import type { CurrentUser } from '@server/auth/current-user.ts';
 import type { Db } from '@server/db/client.ts';
+import { checkSubmittedKernel } from '@server/kernel-check/kernel-check-pool.ts';
 import { AppError } from '@server/http/errors.ts';
 import type { TrialQueue } from '@server/jobs/trial-queue.ts';
 import { candidateAccess } from '@server/candidates/candidate-access.ts';
@@ -62,7 +62,7 @@ export async function submitRevision(
   const { candidate, routine } = await candidateAccess(db, user, candidateId);
   requireRevise(user, candidate);
   if (!revisableStates.includes(candidate.state)) throw notRevisable(candidate.state);
-  const { diagnostics } = typeCheckKernel(input.source, routine.contract);
+  const { diagnostics, checkedWith } = await checkSubmittedKernel(input.source, routine.contract);
   const submitted = await db.transaction(async (tx) => {
     const locked = await lockCandidate(tx, candidateId);
     if (!revisableStates.includes(locked.state)) throw notRevisable(locked.state);
@@ -72,6 +72,7 @@ export async function submitRevision(
       actorId: user.id,
       source: input.source,
       diagnostics,
+      checkedWith,
       action: 'candidate.revised',
     });
   });
