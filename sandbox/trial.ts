@@ -22,6 +22,14 @@ export interface TrialInput {
   routine: RoutineSlug;
   candidateSource: string;
   incumbentSource?: string | null;
+  /**
+   * The candidate's source passed the type check when it was submitted, with the checker this
+   * engine uses (server/jobs/trial-inputs.ts): the trial does not check it again. Otherwise
+   * the trial checks it, and a type error fails the trial.
+   */
+  candidateTypeChecked?: boolean;
+  /** The same for the incumbent's source. */
+  incumbentTypeChecked?: boolean;
   setName: string;
   matrices: ReferenceMatrix[];
   timingSizes: number[];
@@ -79,9 +87,15 @@ export async function runTrial(input: TrialInput): Promise<TrialReport> {
     source: input.candidateSource,
     routine: input.routine,
     limits,
+    typeCheck: input.candidateTypeChecked ? 'skip' : 'block',
   });
   const incumbentLoad = input.incumbentSource
-    ? await loadKernel({ source: input.incumbentSource, routine: input.routine, limits })
+    ? await loadKernel({
+        source: input.incumbentSource,
+        routine: input.routine,
+        limits,
+        typeCheck: input.incumbentTypeChecked ? 'skip' : 'block',
+      })
     : null;
   phases.compileMs = performance.now() - t0;
   const diagnostics = {

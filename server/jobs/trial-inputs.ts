@@ -1,6 +1,7 @@
 import { performance } from 'node:perf_hooks';
 import { eq } from 'drizzle-orm';
 import { acceptancePolicySchema } from '@shared/acceptance-policy.ts';
+import { typeCheckerName } from '@sandbox/isolate/type-check-version.ts';
 import type { TrialInput } from '@sandbox/trial.ts';
 import type { Db } from '@server/db/client.ts';
 import { matrixSets } from '@server/db/schema/matrix-sets.ts';
@@ -16,6 +17,8 @@ export type TrialEngineInput = Pick<
   | 'routine'
   | 'candidateSource'
   | 'incumbentSource'
+  | 'candidateTypeChecked'
+  | 'incumbentTypeChecked'
   | 'setName'
   | 'matrices'
   | 'matricesMs'
@@ -23,28 +26,41 @@ export type TrialEngineInput = Pick<
   | 'policy'
 >;
 
-async function sourceOf(db: Db, revisionId: number): Promise<string | null> {
+interface StoredKernel {
+  source: string;
+  /** It passed the type check at submission, with the checker this process would use. */
+  typeChecked: boolean;
+}
+
+async function kernelOf(db: Db, revisionId: number): Promise<StoredKernel | null> {
   const [row] = await db
-    .select({ source: revisions.source })
+    .select({
+      source: revisions.source,
+      diagnostics: revisions.diagnostics,
+      checkedWith: revisions.checkedWith,
+    })
     .from(revisions)
     .where(eq(revisions.id, revisionId))
     .limit(1);
-  return row?.source ?? null;
+  if (!row) return null;
+  const typeChecked = row.diagnostics.length === 0 && row.checkedWith === typeCheckerName;
+  return { source: row.source, typeChecked };
 }
 
 /**
  * Loads a trial's inputs: the revision's source (the candidate side; for a drift check, the
- * incumbent itself), the incumbent's source when the trial has one, the routine's contract
+ * incumbent itself), the incumbent's source when the trial has one, whether each passed the
+ * type check when submitted (then the trial does not repeat it), the routine's contract
  * and acceptance policy, and the trial's matrix set with its timing sizes. Throws
  * TrialCannotRun for inputs that a retry would not repair.
  */
 export async function loadTrialInput(db: Db, trial: TrialRow): Promise<TrialEngineInput> {
   const [routine] = await db.select().from(routines).where(eq(routines.id, trial.routineId));
   if (!routine) throw new TrialCannotRun('its routine no longer exists');
-  const candidateSource = await sourceOf(db, trial.revisionId);
-  if (candidateSource === null) throw new TrialCannotRun('its revision no longer exists');
-  const incumbentSource =
-    trial.incumbentRevisionId === null ? null : await sourceOf(db, trial.incumbentRevisionId);
+  const candidate = await kernelOf(db, trial.revisionId);
+  if (candidate === null) throw new TrialCannotRun('its revision no longer exists');
+  const incumbent =
+    trial.incumbentRevisionId === null ? null : await kernelOf(db, trial.incumbentRevisionId);
   const policy = acceptancePolicySchema.safeParse(routine.policy);
   if (!policy.success) {
     throw new TrialCannotRun(
@@ -57,8 +73,10 @@ export async function loadTrialInput(db: Db, trial: TrialRow): Promise<TrialEngi
   const matrices = await buildSetMatrices(db, set.id);
   return {
     routine: routine.contract,
-    candidateSource,
-    incumbentSource,
+    candidateSource: candidate.source,
+    incumbentSource: incumbent?.source ?? null,
+    candidateTypeChecked: candidate.typeChecked,
+    incumbentTypeChecked: incumbent?.typeChecked ?? false,
     setName: set.name,
     matrices,
     matricesMs: performance.now() - started,
