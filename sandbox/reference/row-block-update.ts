@@ -70,8 +70,24 @@ export function subtractRowProducts(
       }
     }
     for (; i < i1; i++) {
+      // A lone target row (the odd last row, and every row of a triangular solve): four source
+      // rows per pass, so that each load and store of the target serves four products.
       const ri = i * n;
-      for (let p = pc; p < pe; p++) {
+      let p = pc;
+      for (; p + 4 <= pe; p += 4) {
+        const l0 = w[ri + p]!;
+        const l1 = w[ri + p + 1]!;
+        const l2 = w[ri + p + 2]!;
+        const l3 = w[ri + p + 3]!;
+        const u0 = p * n;
+        const u1 = u0 + n;
+        const u2 = u1 + n;
+        const u3 = u2 + n;
+        for (let j = j0; j < j1; j++)
+          w[ri + j] =
+            w[ri + j]! - l0 * w[u0 + j]! - l1 * w[u1 + j]! - l2 * w[u2 + j]! - l3 * w[u3 + j]!;
+      }
+      for (; p < pe; p++) {
         const l = w[ri + p]!;
         const up = p * n;
         for (let j = j0; j < j1; j++) w[ri + j] = w[ri + j]! - l * w[up + j]!;
