@@ -1,17 +1,18 @@
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
-import type { KernelInstance } from '@sandbox/isolate/kernel-instance.ts';
-import { loadKernel } from '@sandbox/isolate/kernel-runner.ts';
+import { DEFAULT_BLOCKS } from '@sandbox/timing/rounds.ts';
 import { runTrialTiming } from '@sandbox/trial/trial-timing.ts';
 import { goal, type Benchmark, type BenchmarkCheck } from './benchmark.ts';
 import { fmt, median } from './measure.ts';
 
 /**
- * Calibration of the engine's timing verdicts (sandbox/timing through runTrialTiming, as a
- * trial runs it): A/A pairs (one source in two isolates) give the false `faster`/`slower`
- * rate; a kernel with planted extra work of 3 %, 10 % and 30 % of its flops against the plain
- * one gives the detection rate (`slower`). Each repeat is a fresh verdict with its own warm-up,
- * rounds and seed; the kernels stay loaded across repeats, as in a trial.
+ * Calibration of the engine's timing verdicts (sandbox/timing through runTrialTiming, exactly as
+ * a trial runs it: blocks of fresh isolates loaded from the source, both sizes in each block):
+ * A/A pairs (one source as candidate and incumbent, so every block holds two different isolates
+ * of it) give the false `faster`/`slower` rate; a kernel with planted extra work of 3 %, 10 % and
+ * 30 % of its flops against the plain one gives the detection rate (`slower`). Each repeat is a
+ * fresh verdict with its own isolates, warm-up, rounds and seed. Beside the rates: the spread of
+ * the blocks' estimates and of single rounds, to tell where a false alarm comes from.
  */
 
 const ROUTINE = 'lu-partial-pivoting';
@@ -24,16 +25,6 @@ function source(fraction: number): string {
   return text.replace('const EXTRA_FRACTION = 0;', `const EXTRA_FRACTION = ${fraction};`);
 }
 
-async function load(fraction: number): Promise<KernelInstance> {
-  const loaded = await loadKernel({
-    source: source(fraction),
-    routine: ROUTINE,
-    typeCheck: 'skip',
-  });
-  if (!loaded.ok) throw new Error(`planted kernel ${fraction} does not load: ${loaded.message}`);
-  return loaded.kernel;
-}
-
 interface Series {
   n: number;
   planted: number;
@@ -41,34 +32,61 @@ interface Series {
   verdicts: Record<string, number>;
   ratios: number[];
   rounds: number[];
-  verdictMs: number[];
+  /** Robust sd of the blocks' log-ratio estimates, per verdict. */
+  betweenBlock: number[];
+  /** Robust sd of single rounds' log-ratios within a block, over √(rounds per block), per verdict. */
+  roundShare: number[];
+  blockRatios: number[][];
 }
 
+const emptySeries = (n: number, planted: number): Series => ({
+  n,
+  planted,
+  repeats: 0,
+  verdicts: {},
+  ratios: [],
+  rounds: [],
+  betweenBlock: [],
+  roundShare: [],
+  blockRatios: [],
+});
+
+/** Repeats of one trial timing (all sizes at once, as a trial does); one series per size. */
 async function series(
-  n: number,
+  sizes: number[],
   planted: number,
   repeats: number,
   budgetMs: number,
-  candidate: KernelInstance,
-  incumbent: KernelInstance,
-): Promise<Series> {
-  const out: Series = { n, planted, repeats, verdicts: {}, ratios: [], rounds: [], verdictMs: [] };
+  verdictMs: number[],
+): Promise<Series[]> {
+  const out = sizes.map((n) => emptySeries(n, planted));
+  const candidateSource = source(planted);
+  const incumbentSource = source(0);
   for (let r = 0; r < repeats; r++) {
     const t0 = performance.now();
-    const [size] = await runTrialTiming({
+    const timing = await runTrialTiming({
       routine: ROUTINE,
-      sizes: [n],
-      candidate,
-      incumbent,
-      seed: 1000 * n + 100 * Math.round(planted * 100) + r,
+      sizes,
+      candidateSource,
+      incumbentSource,
+      seed: 100 * Math.round(planted * 100) + r + 1,
       budgetMs,
       margin: MARGIN,
     });
-    out.verdictMs.push(performance.now() - t0);
-    const verdict = size?.verdict ?? 'none';
-    out.verdicts[verdict] = (out.verdicts[verdict] ?? 0) + 1;
-    if (size?.ratio != null) out.ratios.push(size.ratio);
-    out.rounds.push(size?.rounds ?? 0);
+    verdictMs.push(performance.now() - t0);
+    for (const [i, s] of out.entries()) {
+      const size = timing[i];
+      s.repeats += 1;
+      const verdict = size?.verdict ?? 'none';
+      s.verdicts[verdict] = (s.verdicts[verdict] ?? 0) + 1;
+      if (size?.ratio != null) s.ratios.push(size.ratio);
+      s.rounds.push(size?.rounds ?? 0);
+      if (size?.betweenBlockSpread != null) s.betweenBlock.push(size.betweenBlockSpread);
+      const perBlock = size?.roundsPerBlock ?? [];
+      if (size?.roundSpread != null && perBlock.length > 0)
+        s.roundShare.push(size.roundSpread / Math.sqrt(median(perBlock)));
+      s.blockRatios.push(size?.blockRatios ?? []);
+    }
   }
   return out;
 }
@@ -87,34 +105,25 @@ export const timingCalibrationBenchmark: Benchmark = {
     // A shorter budget than a trial's default 1 s per size keeps the run to minutes; the
     // rounds it buys are reported beside the rates.
     const budgetMs = smoke ? 20 : 200;
-    const plain = await load(0);
-    const twin = await load(0);
-    const planted = new Map<number, KernelInstance>();
-    for (const f of PLANTED) planted.set(f, await load(f));
     const all: Series[] = [];
     const checks: BenchmarkCheck[] = [];
-    try {
-      for (const n of sizes) {
-        const aa = await series(n, 0, aaRepeats, budgetMs, twin, plain);
-        all.push(aa);
+    const verdictMs: number[] = [];
+    for (const planted of [0, ...PLANTED]) {
+      const repeats = planted === 0 ? aaRepeats : plantedRepeats;
+      const got = await series(sizes, planted, repeats, budgetMs, verdictMs);
+      all.push(...got);
+      for (const s of got)
         log(
-          `  n=${n} A/A: ${JSON.stringify(aa.verdicts)}, rounds ${median(aa.rounds)}, verdict ${fmt(median(aa.verdictMs))} ms`,
+          `  n=${s.n} ${planted === 0 ? 'A/A' : `+${planted * 100} %`}: ${JSON.stringify(s.verdicts)}, median ratio ${fmt(median(s.ratios))}, between-block ${fmt(median(s.betweenBlock))}, round share ${fmt(median(s.roundShare))}`,
         );
-        for (const f of PLANTED) {
-          const s = await series(n, f, plantedRepeats, budgetMs, planted.get(f)!, plain);
-          all.push(s);
-          log(
-            `  n=${n} +${f * 100} %: ${JSON.stringify(s.verdicts)}, median ratio ${fmt(median(s.ratios))}`,
-          );
-        }
-      }
-    } finally {
-      for (const k of [plain, twin, ...planted.values()]) k.dispose();
     }
     for (const s of all)
       checks.push({
-        name: `n=${s.n} planted ${s.planted}: every repeat produced a verdict`,
-        passed: (s.verdicts.none ?? 0) === 0 && s.ratios.length === s.repeats,
+        name: `n=${s.n} planted ${s.planted}: every repeat produced a verdict over ${DEFAULT_BLOCKS} blocks`,
+        passed:
+          (s.verdicts.none ?? 0) === 0 &&
+          s.ratios.length === s.repeats &&
+          s.blockRatios.every((b) => b.length === DEFAULT_BLOCKS),
         detail: JSON.stringify(s.verdicts),
       });
     const pooled = (f: number, verdicts: string[]) => {
@@ -156,11 +165,15 @@ export const timingCalibrationBenchmark: Benchmark = {
             .map(([v, c]) => `${v} ${c}`)
             .join(
               ', ',
-            )} of ${s.repeats}; ratio ${fmt(median(s.ratios))}; ${median(s.rounds)} rounds; ${fmt(median(s.verdictMs))} ms per verdict`,
+            )} of ${s.repeats}; ratio ${fmt(median(s.ratios))}; ${median(s.rounds)} rounds in ${DEFAULT_BLOCKS} blocks; spread between blocks ${fmt(median(s.betweenBlock))}, from rounds alone ${fmt(median(s.roundShare))}`,
         ]),
         ['pooled A/A false rate', fmt(pooled(0, ['faster', 'slower']))],
+        [
+          `one trial timing (n = ${sizes.join(', ')})`,
+          `${fmt(median(verdictMs))} ms (median of ${verdictMs.length})`,
+        ],
       ],
-      data: { budgetMs, margin: MARGIN, series: all },
+      data: { budgetMs, margin: MARGIN, blocks: DEFAULT_BLOCKS, verdictMs, series: all },
     };
   },
 };

@@ -145,8 +145,10 @@ export async function runTrial(input: TrialInput): Promise<TrialReport> {
       timing = await runTrialTiming({
         routine: input.routine,
         sizes: input.timingSizes,
-        candidate: candidateLoad.kernel,
-        incumbent,
+        // Each block of the timing loads both kernels afresh from their checked sources.
+        candidateSource: input.candidateSource,
+        incumbentSource: incumbent && input.incumbentSource ? input.incumbentSource : null,
+        limits,
         seed: input.seed ?? 1,
         budgetMs: input.timingBudgetMs,
         margin: policy.timingMargin,

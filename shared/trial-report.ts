@@ -82,6 +82,16 @@ export const timingReportSchema = z.object({
   verdict: timingVerdictSchema.nullable(),
   flags: z.array(z.string()),
   message: z.string().optional(),
+  /**
+   * The timing design behind the verdict (absent in reports made before it): blocks, each with a
+   * fresh isolate per kernel, their timed rounds, each block's ratio estimate, and the robust
+   * spreads (≈ relative sd) of the block estimates and of single rounds within a block.
+   */
+  blocks: z.number().int().nonnegative().optional(),
+  roundsPerBlock: z.array(z.number().int().nonnegative()).optional(),
+  blockRatios: z.array(z.number()).optional(),
+  betweenBlockSpread: z.number().nullable().optional(),
+  roundSpread: z.number().nullable().optional(),
 });
 export type TimingReport = z.infer<typeof timingReportSchema>;
 

@@ -1,10 +1,10 @@
-import { chooseRounds, chooseWarmup } from '@sandbox/timing/rounds.ts';
+import { chooseRounds } from '@sandbox/timing/rounds.ts';
 import type { KernelRole, TimedKernel, TimingFailure } from '@sandbox/timing/timed-kernel.ts';
 
 /**
- * Timing of one size: warm-up calls (discarded), then R interleaved rounds, each call on a fresh
- * input from makeInput(n) (numerics.md, "Timing"; numerics-references §8.4: interleave so that
- * drift hits both kernels alike, warm up and discard first calls).
+ * Timing of one size in one block: warm-up calls (discarded), then R interleaved rounds, each call
+ * on a fresh input from makeInput(n) (numerics.md, "Timing"; numerics-references §8.4: interleave
+ * so that drift hits both kernels alike, warm up and discard first calls).
  */
 
 export interface SizeTimingPlan<TInput> {
@@ -12,10 +12,12 @@ export interface SizeTimingPlan<TInput> {
   candidate: TimedKernel<TInput>;
   incumbent: TimedKernel<TInput> | null;
   makeInput: (n: number) => TInput;
-  /** Time for this size's timed rounds, in ms. */
+  /** Time for this size's timed rounds in this block, in ms. */
   budgetMs: number;
-  /** Warm-up calls per kernel; undefined: chooseWarmup(first call's time). */
-  warmup: number | undefined;
+  /** Warm-up calls per kernel, from the time of the first (slower) call of the two. */
+  warmup: (firstCallMs: number) => number;
+  /** Added to the round number before choosing the call order (the block's index). */
+  orderOffset: number;
   minRounds: number | undefined;
   maxRounds: number | undefined;
   onRound: (round: number, rounds: number) => void;
@@ -70,12 +72,12 @@ export async function timeOneSize<TInput>(plan: SizeTimingPlan<TInput>): Promise
     }
     return times;
   };
-  let warmup = plan.warmup;
+  let warmup: number | undefined;
   for (let w = 0; w < (warmup ?? 1); w++) {
-    const times = await pass(w, 'warm-up');
+    const times = await pass(plan.orderOffset + w, 'warm-up');
     if (times === null) return raw;
     for (const [role, ms] of Object.entries(times)) raw.warmMs[role as KernelRole].push(ms);
-    warmup ??= chooseWarmup(Math.max(...Object.values(times)));
+    warmup ??= plan.warmup(Math.max(...Object.values(times)));
   }
   // One round costs about the sum of each kernel's last (warmest) warm-up call.
   const roundMs = (raw.warmMs.candidate.at(-1) ?? 0) + (raw.warmMs.incumbent.at(-1) ?? 0);
@@ -86,7 +88,7 @@ export async function timeOneSize<TInput>(plan: SizeTimingPlan<TInput>): Promise
     ...(plan.maxRounds === undefined ? {} : { maxRounds: plan.maxRounds }),
   });
   for (let r = 0; r < raw.plannedRounds; r++) {
-    const times = await pass(r, 'timing');
+    const times = await pass(plan.orderOffset + r, 'timing');
     if (times === null) return raw;
     for (const [role, ms] of Object.entries(times)) raw.roundMs[role as KernelRole].push(ms);
     plan.onRound(r + 1, raw.plannedRounds);

@@ -58,7 +58,11 @@ export function timingVerdict(
   return 'no clear difference';
 }
 
-function logRatios(sample: PairedSample, index: number): number[] {
+/**
+ * The per-round log-ratios ln(c_r) − ln(i_r) of one paired sample. Throws RangeError on unequal
+ * lengths or a time that is not positive and finite (`index` names the sample in the message).
+ */
+export function pairedLogRatios(sample: PairedSample, index = 0): number[] {
   const { candidateMs, incumbentMs } = sample;
   if (candidateMs.length !== incumbentMs.length) {
     throw new RangeError(`samples[${index}]: candidateMs and incumbentMs must have equal lengths`);
@@ -72,39 +76,47 @@ function logRatios(sample: PairedSample, index: number): number[] {
   });
 }
 
-/**
- * Compare several sizes at once: per size the HL ratio, its interval and the signed-rank p-value;
- * across sizes the Benjamini–Hochberg adjustment at rate 1 − confidence; then the verdict.
- * Cost O(R² log R) per size for R rounds. Throws RangeError on unequal lengths, non-positive or
- * non-finite times, or a margin or confidence out of range.
- */
-export function compareTimings(
-  samples: readonly PairedSample[],
-  options: ComparisonOptions = {},
-): PairedComparison[] {
+/** The location estimate and its test for one sample of log-ratios (one size). */
+export interface LogRatioComparison {
+  /** exp(HL estimate of the log-ratios); null for an empty sample. */
+  ratio: number | null;
+  /** [exp(W_(k)), exp(W_(M+1−k))]; null when the sample is too small for the confidence. */
+  ci95: [number, number] | null;
+  /** Two-sided signed-rank p-value (null for an empty sample). */
+  pValue: number | null;
+  pValueAdjusted: number | null;
+  verdict: TimingVerdict;
+}
+
+/** Throws RangeError when the margin or the confidence is out of range; returns both. */
+export function checkComparisonOptions(options: ComparisonOptions): Required<ComparisonOptions> {
   const { margin = 0.03, confidence = 0.95 } = options;
   if (!(margin >= 0 && Number.isFinite(margin)))
     throw new RangeError(`margin must be ≥ 0, got ${margin}`);
   if (!(confidence > 0 && confidence < 1)) {
     throw new RangeError(`confidence must lie in (0, 1), got ${confidence}`);
   }
-  const partial = samples.map((sample, index) => {
-    const d = logRatios(sample, index);
-    if (d.length === 0) {
-      return { rounds: 0, candidate: null, incumbent: null, ratio: null, ci95: null, pValue: null };
-    }
+  return { margin, confidence };
+}
+
+/**
+ * The comparison of several sizes from one sample of log-ratios ln(candidate/incumbent) each
+ * (paired rounds, or one estimate per block of rounds): per size the HL estimate, its signed-rank
+ * interval and two-sided p-value; across sizes the Benjamini–Hochberg adjustment at rate
+ * 1 − confidence; then the verdict. Cost O(L² log L) per size of L log-ratios. Throws RangeError
+ * on a non-finite log-ratio or a margin or confidence out of range.
+ */
+export function compareLogRatios(
+  samples: readonly (readonly number[])[],
+  options: ComparisonOptions = {},
+): LogRatioComparison[] {
+  const { margin, confidence } = checkComparisonOptions(options);
+  const partial = samples.map((d) => {
+    if (d.length === 0) return { ratio: null, ci95: null, pValue: null };
     const hl = hodgesLehmannOneSample(d, { confidence });
     const ci95: [number, number] | null =
       hl.k === 0 ? null : [Math.exp(hl.lower), Math.exp(hl.upper)];
-    const pValue = wilcoxonSignedRank(d).pValue;
-    return {
-      rounds: d.length,
-      candidate: summariseTimes(sample.candidateMs),
-      incumbent: summariseTimes(sample.incumbentMs),
-      ratio: Math.exp(hl.estimate),
-      ci95,
-      pValue,
-    };
+    return { ratio: Math.exp(hl.estimate), ci95, pValue: wilcoxonSignedRank(d).pValue };
   });
   const tested = partial.filter((p) => p.pValue !== null).map((p) => p.pValue!);
   const { adjusted } = benjaminiHochberg(tested, 1 - confidence);
@@ -113,6 +125,30 @@ export function compareTimings(
     const pValueAdjusted = p.pValue === null ? null : adjusted[next++]!;
     const significant = pValueAdjusted !== null && pValueAdjusted <= 1 - confidence;
     return { ...p, pValueAdjusted, verdict: timingVerdict(p.ratio, p.ci95, margin, significant) };
+  });
+}
+
+/**
+ * Compare several sizes at once on their paired rounds: compareLogRatios on the per-round
+ * log-ratios, with each side's time summary. Cost O(R² log R) per size for R rounds. Throws
+ * RangeError on unequal lengths, non-positive or non-finite times, or a margin or confidence out
+ * of range.
+ */
+export function compareTimings(
+  samples: readonly PairedSample[],
+  options: ComparisonOptions = {},
+): PairedComparison[] {
+  checkComparisonOptions(options);
+  const logs = samples.map((sample, index) => pairedLogRatios(sample, index));
+  const compared = compareLogRatios(logs, options);
+  return samples.map((sample, i) => {
+    const empty = logs[i]!.length === 0;
+    return {
+      rounds: logs[i]!.length,
+      candidate: empty ? null : summariseTimes(sample.candidateMs),
+      incumbent: empty ? null : summariseTimes(sample.incumbentMs),
+      ...compared[i]!,
+    };
   });
 }
 

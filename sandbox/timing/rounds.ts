@@ -1,9 +1,10 @@
 /**
- * How many timed rounds and warm-up calls to spend on one size. Rounds are cheap at small n, so a
- * fixed time budget buys many there and few at large n (numerics.md, "Timing"). The bounds are
- * common practice: at least 11 rounds, so that the exact 95 % signed-rank interval exists (it needs
- * at least 6) with some room to spare; at most 201, beyond which the interval narrows only slowly
- * (like 1/√R) while drift of a busy machine grows with the time spent.
+ * How many blocks, timed rounds and warm-up calls to spend on one size. Rounds are cheap at small
+ * n, so a fixed time budget buys many there and few at large n (numerics.md, "Timing"). The
+ * generic bounds of chooseRounds are common practice: at least 11 rounds, so that the exact 95 %
+ * signed-rank interval over the rounds exists (it needs at least 6) with some room to spare; at
+ * most 201, beyond which the interval narrows only slowly (like 1/√R) while drift of a busy
+ * machine grows with the time spent.
  */
 
 export const MIN_ROUNDS = 11;
@@ -13,6 +14,32 @@ export const MAX_WARMUP = 30;
 
 /** Warm-up should cover at least this much run time, as well as MIN_WARMUP calls (common practice). */
 export const WARMUP_TIME_MS = 100;
+
+/**
+ * Blocks of a timing run, each with a fresh isolate per kernel (block-comparison.ts). The verdict
+ * bounds the ratio across the blocks' estimates with the exact signed-rank interval: 8 blocks give
+ * the 95 % interval [W_(4), W_(33)] of the 36 Walsh averages (exact coverage 1 − 2·5/256 = 0.961)
+ * and a smallest two-sided p-value of 2/2⁸ = 0.0078, below 0.05/6, so a single clear size can
+ * survive Benjamini–Hochberg over up to six sizes. Fewer blocks than 8 cannot; more cost a fresh
+ * isolate pair and its warm-up each, and the kernel calls of at least one round per size.
+ */
+export const DEFAULT_BLOCKS = 8;
+
+/**
+ * Rounds per block and size: at least 1 (a block's estimate is then its one log-ratio; the call
+ * order still alternates from block to block) and at most ⌈MAX_ROUNDS / DEFAULT_BLOCKS⌉, so that
+ * the rounds of all blocks together stay within the generic bound.
+ */
+export const MIN_BLOCK_ROUNDS = 1;
+export const MAX_BLOCK_ROUNDS = Math.ceil(MAX_ROUNDS / DEFAULT_BLOCKS);
+
+/**
+ * A later size in a block runs in isolates that are already warm (the same compiled code, other
+ * array lengths), so it needs only enough calls to settle its own caches and to measure a round:
+ * about this much run time, 1 to MIN_WARMUP calls (measured: at n = 128…512 the first call in a
+ * warm isolate was within the spread of the later ones; common practice otherwise).
+ */
+export const WARM_ISOLATE_WARMUP_TIME_MS = 20;
 
 export interface RoundsOptions {
   /** Time to spend on the timed rounds of this size, in ms. */
@@ -64,4 +91,16 @@ export function chooseWarmup(firstCallMs: number): number {
     throw new RangeError(`firstCallMs must be ≥ 0 and finite, got ${firstCallMs}`);
   }
   return clamp(Math.ceil(WARMUP_TIME_MS / firstCallMs), MIN_WARMUP, MAX_WARMUP);
+}
+
+/**
+ * Warm-up calls per kernel for a size in isolates that already ran another size:
+ * clamp(⌈WARM_ISOLATE_WARMUP_TIME_MS/firstCallMs⌉, 1, MIN_WARMUP). Throws RangeError when
+ * firstCallMs is negative or not finite.
+ */
+export function chooseWarmupInWarmIsolate(firstCallMs: number): number {
+  if (!(firstCallMs >= 0 && Number.isFinite(firstCallMs))) {
+    throw new RangeError(`firstCallMs must be ≥ 0 and finite, got ${firstCallMs}`);
+  }
+  return clamp(Math.ceil(WARM_ISOLATE_WARMUP_TIME_MS / firstCallMs), 1, MIN_WARMUP);
 }

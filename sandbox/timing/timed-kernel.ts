@@ -18,10 +18,30 @@ export interface TimedKernel<TInput> {
 /** The two sides of a comparison. */
 export type KernelRole = 'candidate' | 'incumbent';
 
-/** The first failed call at one size; timing of that size stops there. */
+/** A kernel that holds resources (an isolate) to free after its block. */
+export interface DisposableTimedKernel<TInput> extends TimedKernel<TInput> {
+  dispose(): void;
+}
+
+/** A fresh kernel (a new isolate of the same code), or why it could not be started. */
+export type FreshKernel<TInput> =
+  | { ok: true; kernel: DisposableTimedKernel<TInput> }
+  | { ok: false; status: CallStatus; message: string };
+
+/** A source of fresh kernels: each block of a timing run times a new one (interleaved.ts). */
+export interface FreshKernels<TInput> {
+  fresh(): Promise<FreshKernel<TInput>>;
+}
+
+/** One kernel used by every block, or a fresh kernel per block. */
+export type KernelSupply<TInput> = TimedKernel<TInput> | FreshKernels<TInput>;
+
+/** The first failed call at one size; timing of that size stops there (in every later block). */
 export interface TimingFailure {
   kernel: KernelRole;
   phase: 'warm-up' | 'timing';
   status: CallStatus;
   message: string;
+  /** 0-based block in which it failed (absent: not known). */
+  block?: number;
 }

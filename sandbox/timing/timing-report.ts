@@ -1,5 +1,6 @@
 import type { TimingReport } from '@shared/trial-report.ts';
 import type { KernelTiming, SizeTiming } from '@sandbox/timing/interleaved.ts';
+import type { TimingFailure } from '@sandbox/timing/timed-kernel.ts';
 
 /**
  * The shared report shape of one timed size (shared/trial-report.ts) from the engine's SizeTiming:
@@ -9,6 +10,11 @@ import type { KernelTiming, SizeTiming } from '@sandbox/timing/interleaved.ts';
 function detail(side: KernelTiming | null): TimingReport['candidateDetail'] {
   if (side === null) return null;
   return { medianMs: side.medianMs, q1Ms: side.q1Ms, q3Ms: side.q3Ms, gflops: side.gflops };
+}
+
+function failureMessage(failure: TimingFailure): string {
+  const where = failure.block === undefined ? '' : ` in block ${failure.block + 1}`;
+  return `the ${failure.kernel} failed during ${failure.phase}${where} (${failure.status}): ${failure.message}`;
 }
 
 /** Map one size's timing to the shared TimingReport. Cost O(1). */
@@ -26,10 +32,11 @@ export function toTimingReport(size: SizeTiming): TimingReport {
     pValue: size.pValue,
     verdict: size.verdict,
     flags: [...size.flags],
-    ...(failure === null
-      ? {}
-      : {
-          message: `the ${failure.kernel} failed during ${failure.phase} (${failure.status}): ${failure.message}`,
-        }),
+    blocks: size.blocks,
+    roundsPerBlock: [...size.roundsPerBlock],
+    blockRatios: [...size.blockRatios],
+    betweenBlockSpread: size.betweenBlockSpread,
+    roundSpread: size.roundSpread,
+    ...(failure === null ? {} : { message: failureMessage(failure) }),
   };
 }

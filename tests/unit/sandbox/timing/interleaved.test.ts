@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { flopCount } from '@sandbox/timing/flops.ts';
 import { runInterleavedTiming, type TimingProgress } from '@sandbox/timing/interleaved.ts';
-import type { TimedCall, TimedKernel } from '@sandbox/timing/timed-kernel.ts';
+import type { FreshKernels, TimedCall, TimedKernel } from '@sandbox/timing/timed-kernel.ts';
 import { seededNormal } from '@tests/helpers/seeded-random.ts';
 
 /** A fake input: which size and which makeInput call produced it. */
@@ -46,6 +46,7 @@ describe('runInterleavedTiming: call order and warm-up', () => {
       candidate: fakeKernel('C', log, constant(1)),
       incumbent: fakeKernel('I', log, constant(1)),
       makeInput: inputMaker(),
+      blocks: 1,
       budgetMs: 0,
       warmup: 3,
       minRounds: 5,
@@ -67,6 +68,7 @@ describe('runInterleavedTiming: call order and warm-up', () => {
       routine: 'ldlt',
       candidate: fakeKernel('C', log, (k) => ({ ok: true, ms: k === 0 ? 50 : 2 })),
       makeInput: inputMaker(),
+      blocks: 1,
       budgetMs: 0,
       minRounds: 11,
       maxRounds: 11,
@@ -74,7 +76,7 @@ describe('runInterleavedTiming: call order and warm-up', () => {
     expect(log.length).toBe(5 + 11);
   });
 
-  it('chooses rounds per size from the budget and the last warm-up times', async () => {
+  it('chooses rounds per block and size from the budget and the last warm-up times', async () => {
     const log: LoggedCall[] = [];
     const results = await runInterleavedTiming({
       sizes: [2, 3],
@@ -82,11 +84,16 @@ describe('runInterleavedTiming: call order and warm-up', () => {
       candidate: fakeKernel('C', log, constant(1)),
       incumbent: fakeKernel('I', log, constant(1)),
       makeInput: inputMaker(),
-      budgetMs: 60, // per size; 2 ms per round → 30 rounds each
+      blocks: 2,
+      budgetMs: 60, // per size, 30 per block; 2 ms per round → 15 rounds per block
       warmup: 2,
     });
     expect(results.map((r) => r.rounds)).toEqual([30, 30]);
-    expect(log.filter((c) => c.input.n === 3 && c.kernel === 'I').length).toBe(2 + 30);
+    expect(results.map((r) => r.roundsPerBlock)).toEqual([
+      [15, 15],
+      [15, 15],
+    ]);
+    expect(log.filter((c) => c.input.n === 3 && c.kernel === 'I').length).toBe(2 * (2 + 15));
   });
 });
 
@@ -125,12 +132,15 @@ describe('runInterleavedTiming: results', () => {
       warmup: 1,
     });
     expect(log.every((c) => c.kernel === 'C')).toBe(true);
+    // Budget 0: the minimum of one round in each of the 8 default blocks.
     expect(size).toMatchObject({
       incumbent: null,
       ratio: null,
       ci95: null,
       verdict: null,
-      rounds: 11,
+      rounds: 8,
+      blocks: 8,
+      blockRatios: [],
     });
     expect(size!.candidate!.gflops).toBeCloseTo(flopCount('householder-qr', 10, 5) / 0.5e6, 12);
   });
@@ -142,8 +152,10 @@ describe('runInterleavedTiming: results', () => {
       candidate: fakeKernel('C', [], (k) => ({ ok: true, ms: k < 4 ? 1 : 1.8 })),
       incumbent: fakeKernel('I', [], constant(1)),
       makeInput: inputMaker(),
+      blocks: 1,
       budgetMs: 0,
       warmup: 4,
+      minRounds: 11,
     });
     expect(size!.flags).toEqual(['candidate-stuck-slow']);
   });
@@ -161,8 +173,10 @@ describe('runInterleavedTiming: results', () => {
       candidate,
       incumbent: fakeKernel('I', log, constant(1)),
       makeInput: inputMaker(),
+      blocks: 1,
       budgetMs: 0,
       warmup: 2,
+      minRounds: 11,
     });
     // Candidate calls 0, 1 are warm-up, 2, 3, 4 rounds 0–2; call 5 (round 3) fails.
     expect(results[0]).toMatchObject({
@@ -187,12 +201,16 @@ describe('runInterleavedTiming: results', () => {
       routine: 'back-substitution',
       candidate: fakeKernel('C', [], constant(1)),
       makeInput: inputMaker(),
+      blocks: 1,
       budgetMs: 0,
       warmup: 1,
+      minRounds: 11,
       onProgress: (p) => events.push(p),
     });
     expect(events.map((e) => e.phase)).toEqual(['warm-up', ...Array(11).fill('timing'), 'done']);
     expect(events.at(-1)).toMatchObject({
+      block: 0,
+      blockCount: 1,
       sizeIndex: 0,
       sizeCount: 1,
       n: 3,
@@ -212,10 +230,171 @@ describe('runInterleavedTiming: results', () => {
     };
     await expect(runInterleavedTiming({ ...base, sizes: [] })).rejects.toThrow(/sizes/);
     await expect(runInterleavedTiming({ ...base, warmup: 0 })).rejects.toThrow(/warmup/);
+    await expect(runInterleavedTiming({ ...base, blocks: 0 })).rejects.toThrow(/blocks/);
     await expect(runInterleavedTiming({ ...base, margin: -1 })).rejects.toThrow(/margin/);
     await expect(runInterleavedTiming({ ...base, budgetMs: NaN })).rejects.toThrow(/budgetMs/);
     expect(log).toEqual([]);
     const zero = fakeKernel('Z', [], constant(0));
     await expect(runInterleavedTiming({ ...base, candidate: zero })).rejects.toThrow(/positive/);
+  });
+});
+
+/** Fresh fake kernels: each fresh() is a new "isolate" that logs its calls under its own name. */
+function freshFakes(
+  side: string,
+  events: string[],
+  log: LoggedCall[],
+  script: (isolate: number, call: number, input: FakeInput) => TimedCall,
+  failToStart: (isolate: number) => boolean = () => false,
+): FreshKernels<FakeInput> {
+  let started = 0;
+  return {
+    fresh() {
+      const isolate = started++;
+      if (failToStart(isolate)) {
+        events.push(`fail ${side}${isolate}`);
+        return Promise.resolve({ ok: false, status: 'out-of-memory', message: 'no room' });
+      }
+      events.push(`open ${side}${isolate}`);
+      const kernel = fakeKernel(`${side}${isolate}`, log, (call, input) =>
+        script(isolate, call, input),
+      );
+      return Promise.resolve({
+        ok: true,
+        kernel: { ...kernel, dispose: () => events.push(`dispose ${side}${isolate}`) },
+      });
+    },
+  };
+}
+
+describe('runInterleavedTiming: blocks of fresh kernels', () => {
+  it('opens a fresh pair per block in alternating order, times every size in it, disposes it', async () => {
+    const events: string[] = [];
+    const log: LoggedCall[] = [];
+    const results = await runInterleavedTiming({
+      sizes: [4, 8],
+      routine: 'lu-partial-pivoting',
+      candidate: freshFakes('C', events, log, () => ({ ok: true, ms: 1 })),
+      incumbent: freshFakes('I', events, log, () => ({ ok: true, ms: 1 })),
+      makeInput: inputMaker(),
+      blocks: 3,
+      budgetMs: 0,
+      warmup: 1,
+      minRounds: 2,
+      maxRounds: 2,
+    });
+    expect(events).toEqual([
+      ...['open C0', 'open I0', 'dispose C0', 'dispose I0'],
+      ...['open I1', 'open C1', 'dispose I1', 'dispose C1'],
+      ...['open C2', 'open I2', 'dispose C2', 'dispose I2'],
+    ]);
+    // Block b: size 4 then size 8, each one warm-up pass and two rounds; the warm-up pass and
+    // round 0 take the order of pass b, round 1 the order of pass b + 1 (candidate first on even).
+    const order = (pass: number, b: number) =>
+      pass % 2 === 0 ? [`C${b}`, `I${b}`] : [`I${b}`, `C${b}`];
+    const expected: string[] = [];
+    for (let b = 0; b < 3; b++) {
+      for (const n of [4, 8]) {
+        for (const pass of [b, b, b + 1]) expected.push(...order(pass, b).map((k) => `${k}:${n}`));
+      }
+    }
+    expect(log.map((c) => `${c.kernel}:${c.input.n}`)).toEqual(expected);
+    expect(results.map((r) => [r.blocks, r.rounds, r.roundsPerBlock])).toEqual([
+      [3, 6, [2, 2, 2]],
+      [3, 6, [2, 2, 2]],
+    ]);
+  });
+
+  it('warms a fresh isolate fully and an already warm one briefly', async () => {
+    const log: LoggedCall[] = [];
+    // Every call 4 ms: a fresh isolate gets ⌈100/4⌉ = 25 warm-up calls (chooseWarmup), the
+    // second size in the same isolates ⌈20/4⌉ = 5 (chooseWarmupInWarmIsolate).
+    await runInterleavedTiming({
+      sizes: [4, 8],
+      routine: 'cholesky',
+      candidate: freshFakes('C', [], log, () => ({ ok: true, ms: 4 })),
+      makeInput: inputMaker(),
+      blocks: 2,
+      budgetMs: 0,
+      minRounds: 1,
+      maxRounds: 1,
+    });
+    const count = (name: string, n: number) =>
+      log.filter((c) => c.kernel === name && c.input.n === n).length;
+    expect([count('C0', 4), count('C0', 8), count('C1', 4), count('C1', 8)]).toEqual([
+      25 + 1,
+      5 + 1,
+      25 + 1,
+      5 + 1,
+    ]);
+  });
+
+  it('reports a failure in a later block for that size only, and times the other size on', async () => {
+    const events: string[] = [];
+    const log: LoggedCall[] = [];
+    const results = await runInterleavedTiming({
+      sizes: [5, 7],
+      routine: 'cholesky',
+      // The candidate's isolate of block 3 times out on its third call at n = 7.
+      candidate: freshFakes('C', events, log, (isolate, call, input) =>
+        isolate === 3 && input.n === 7 && call === 4
+          ? { ok: false, status: 'timeout', message: 'over 10 s' }
+          : { ok: true, ms: 1 },
+      ),
+      incumbent: freshFakes('I', events, log, () => ({ ok: true, ms: 1 })),
+      makeInput: inputMaker(),
+      blocks: 8,
+      budgetMs: 0,
+      warmup: 1,
+      minRounds: 2,
+      maxRounds: 2,
+    });
+    // Block 3's candidate: calls 0–2 at n = 5 (warm-up, two rounds), 3 warm-up at n = 7, 4 fails.
+    expect(results[1]).toMatchObject({
+      rounds: 3 * 2,
+      blocks: 3,
+      verdict: null,
+      ratio: null,
+      flags: ['candidate-failed'],
+      failure: { kernel: 'candidate', phase: 'timing', status: 'timeout', block: 3 },
+    });
+    expect(results[0]).toMatchObject({ blocks: 8, rounds: 16, failure: null, flags: [] });
+    expect(results[0]!.verdict).toBe('no clear difference');
+    // No later block times n = 7, and every opened kernel was disposed.
+    expect(log.filter((c) => c.kernel === 'C5' && c.input.n === 7)).toEqual([]);
+    const opened = events.filter((e) => e.startsWith('open')).map((e) => e.slice(5));
+    const disposed = events.filter((e) => e.startsWith('dispose')).map((e) => e.slice(8));
+    expect(disposed.sort()).toEqual(opened.sort());
+    expect(opened).toHaveLength(16);
+  });
+
+  it('reports a fresh kernel that does not start as a failure of every size, not a throw', async () => {
+    const events: string[] = [];
+    const results = await runInterleavedTiming({
+      sizes: [5, 7],
+      routine: 'cholesky',
+      candidate: freshFakes('C', events, [], () => ({ ok: true, ms: 1 })),
+      incumbent: freshFakes(
+        'I',
+        events,
+        [],
+        () => ({ ok: true, ms: 1 }),
+        (isolate) => isolate === 2,
+      ),
+      makeInput: inputMaker(),
+      blocks: 8,
+      budgetMs: 0,
+      warmup: 1,
+    });
+    for (const size of results) {
+      expect(size).toMatchObject({
+        blocks: 2,
+        verdict: null,
+        flags: ['incumbent-failed'],
+        failure: { kernel: 'incumbent', phase: 'warm-up', status: 'out-of-memory', block: 2 },
+      });
+    }
+    // Block 2 opens the candidate first (even block) and frees it; no block after it starts.
+    expect(events.slice(-3)).toEqual(['open C2', 'fail I2', 'dispose C2']);
   });
 });

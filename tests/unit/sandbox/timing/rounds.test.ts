@@ -2,6 +2,9 @@ import { describe, expect, it } from 'vitest';
 import {
   chooseRounds,
   chooseWarmup,
+  chooseWarmupInWarmIsolate,
+  DEFAULT_BLOCKS,
+  MAX_BLOCK_ROUNDS,
   MAX_ROUNDS,
   MAX_WARMUP,
   MIN_ROUNDS,
@@ -43,5 +46,27 @@ describe('chooseWarmup', () => {
     expect(chooseWarmup(0)).toBe(30);
     expect(chooseWarmup(60)).toBe(5);
     expect(() => chooseWarmup(-1)).toThrow(/firstCallMs/);
+  });
+});
+
+describe('chooseWarmupInWarmIsolate', () => {
+  it('covers about 20 ms of calls, between 1 and 5 calls', () => {
+    expect(chooseWarmupInWarmIsolate(100)).toBe(1);
+    expect(chooseWarmupInWarmIsolate(10)).toBe(2);
+    expect(chooseWarmupInWarmIsolate(0.5)).toBe(5);
+    expect(chooseWarmupInWarmIsolate(0)).toBe(5);
+    expect(() => chooseWarmupInWarmIsolate(Number.NaN)).toThrow(/firstCallMs/);
+  });
+});
+
+describe('blocks', () => {
+  it('uses 8 blocks, whose rounds together stay within the bound of a single run', () => {
+    // 8 is the fewest blocks whose smallest two-sided exact signed-rank p-value, 2/2^8, lies
+    // below 0.05/6 (Benjamini–Hochberg with one clear size among six).
+    expect(DEFAULT_BLOCKS).toBe(8);
+    expect(2 / 2 ** DEFAULT_BLOCKS).toBeLessThan(0.05 / 6);
+    expect(2 / 2 ** (DEFAULT_BLOCKS - 1)).toBeGreaterThan(0.05 / 6);
+    expect(DEFAULT_BLOCKS * MAX_BLOCK_ROUNDS).toBeGreaterThanOrEqual(MAX_ROUNDS);
+    expect(DEFAULT_BLOCKS * (MAX_BLOCK_ROUNDS - 1)).toBeLessThan(MAX_ROUNDS);
   });
 });

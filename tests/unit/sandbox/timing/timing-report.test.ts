@@ -15,6 +15,11 @@ const compared: SizeTiming = {
   pValue: 0.001,
   pValueAdjusted: 0.002,
   verdict: 'slower',
+  blocks: 8,
+  roundsPerBlock: [4, 4, 4, 4, 4, 4, 4, 3],
+  blockRatios: [1.08, 1.12, 1.1, 1.09, 1.11, 1.1, 1.13, 1.07],
+  betweenBlockSpread: 0.015,
+  roundSpread: 0.04,
   flags: [],
   failure: null,
 };
@@ -26,6 +31,13 @@ describe('toTimingReport', () => {
     expect(report.incumbent).toBe(1);
     expect(report.candidateDetail).toEqual({ medianMs: 1.1, q1Ms: 1, q3Ms: 1.2, gflops: 2.5 });
     expect(report).toMatchObject({ ratio: 1.1, ci95: [1.05, 1.15], verdict: 'slower' });
+    expect(report).toMatchObject({
+      blocks: 8,
+      roundsPerBlock: compared.roundsPerBlock,
+      blockRatios: compared.blockRatios,
+      betweenBlockSpread: 0.015,
+      roundSpread: 0.04,
+    });
     expect(report.message).toBeUndefined();
   });
 
@@ -40,12 +52,30 @@ describe('toTimingReport', () => {
       pValueAdjusted: null,
       verdict: null,
       flags: ['candidate-failed'],
-      failure: { kernel: 'candidate', phase: 'warm-up', status: 'timeout', message: 'over 2 s' },
+      failure: {
+        kernel: 'candidate',
+        phase: 'warm-up',
+        status: 'timeout',
+        message: 'over 2 s',
+        block: 2,
+      },
     };
     const report = timingReportSchema.parse(toTimingReport(failed));
+    expect(report.message).toContain('in block 3');
     expect(report.candidate).toBeNull();
     expect(report.flags).toEqual(['candidate-failed']);
     expect(report.message).toContain('timeout');
     expect(report.message).toContain('over 2 s');
+  });
+
+  it('still accepts a report made before the block fields existed', () => {
+    const report = toTimingReport(compared);
+    const { blocks, roundsPerBlock, blockRatios, betweenBlockSpread, roundSpread, ...before } =
+      report;
+    expect([blocks, roundsPerBlock, blockRatios, betweenBlockSpread, roundSpread]).not.toContain(
+      undefined,
+    );
+    expect(timingReportSchema.parse(before)).toEqual(before);
+    expect(() => timingReportSchema.parse({ ...report, blocks: -1 })).toThrow();
   });
 });
