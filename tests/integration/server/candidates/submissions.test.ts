@@ -4,7 +4,10 @@ import { commentPageSchema, commentSchema } from '@shared/api/comments.ts';
 import { revisionSchema } from '@shared/api/revisions.ts';
 import { trialPageSchema } from '@shared/api/trials.ts';
 import { apiErrorSchema } from '@shared/errors.ts';
+import { eq } from 'drizzle-orm';
+import { typeCheckerName } from '@sandbox/isolate/type-check-version.ts';
 import { loadEnv } from '@server/config/env.ts';
+import { revisions } from '@server/db/schema/revisions.ts';
 import type { TestUser } from '@tests/helpers/users.ts';
 import { badKernel, call, goodKernel, startReviewWorld, type ReviewWorld } from './review-world.ts';
 import { finishTrial } from './simulated-worker.ts';
@@ -58,6 +61,45 @@ describe('submitting a candidate', () => {
     expect(revision.source).toBe(badKernel);
     expect(revision.errorCount).toBe(revision.diagnostics.length);
   });
+
+  it('stores which checker found the diagnostics, so the trial need not check again', async () => {
+    const good = await submit(world.people.author, goodKernel, 'Checked once');
+    const bad = await submit(world.people.author, badKernel, 'Checked once, wrong');
+    for (const submission of [good, bad]) {
+      const [row] = await world.db
+        .select({ checkedWith: revisions.checkedWith, diagnostics: revisions.diagnostics })
+        .from(revisions)
+        .where(eq(revisions.id, submission.revision.id));
+      expect(row!.checkedWith).toBe(typeCheckerName);
+      expect(row!.diagnostics).toEqual(submission.revision.diagnostics);
+    }
+    expect(good.revision.diagnostics).toEqual([]);
+    expect(good.trial).not.toBeNull();
+  });
+
+  it('answers other requests while a submission is being type-checked', async () => {
+    // A long kernel keeps the check busy for a second or more; the list is read meanwhile,
+    // one request after another. A check on the request thread would let through at most the
+    // reads already in flight when it started and the one racing the rest of the submission
+    // (two or three); off the thread the reads go on all through the check.
+    const helpers = Array.from(
+      { length: 500 },
+      (_, i) => `export function helper${i}(x: Float64Array): number {\n  return x[0]! + ${i};\n}`,
+    );
+    const longKernel = [goodKernel, ...helpers].join('\n');
+    let checking = true;
+    const posted = submit(world.people.author, longKernel, 'Long kernel').finally(() => {
+      checking = false;
+    });
+    let answeredWhileChecking = 0;
+    while (checking) {
+      const res = await call(candidatesUrl(), world.people.reviewer);
+      expect(res.status).toBe(200);
+      if (checking) answeredWhileChecking++;
+    }
+    expect((await posted).revision.diagnostics).toEqual([]);
+    expect(answeredWhileChecking).toBeGreaterThanOrEqual(10);
+  }, 120_000);
 
   it('takes a .ts file upload with the title as a form field', async () => {
     const res = await upload(
