@@ -26,6 +26,7 @@ export function matrixResultRows(trialId: number, report: TrialReport): MatrixIn
     n: m.n,
     condition: m.condition,
     conditionKind: m.conditionKind,
+    referenceGrowth: m.referenceGrowth,
     expected: m.expected,
     referenceTrusted: m.referenceTrusted,
     note: m.note,

@@ -22,10 +22,7 @@ function reviveOutcome(outcome: KernelOutcome): KernelOutcome {
   return { ...outcome, metrics: reviveMetrics(outcome.metrics as Record<string, unknown>) };
 }
 
-/**
- * A per-matrix result row in the report's shape. The row does not keep the reference growth
- * factor (it only scales the threshold the verdict already applied), so it is null here.
- */
+/** A per-matrix result row in the report's shape (rows written before 0002 have no growth). */
 export function toMatrixReport(row: MatrixResultRow): MatrixReport {
   return {
     id: row.matrixId,
@@ -36,7 +33,7 @@ export function toMatrixReport(row: MatrixResultRow): MatrixReport {
     conditionKind:
       row.conditionKind === 'exact' || row.conditionKind === 'estimate' ? row.conditionKind : null,
     expected: row.expected === 'reject' ? 'reject' : 'factor',
-    referenceGrowth: null,
+    referenceGrowth: row.referenceGrowth,
     referenceTrusted: row.referenceTrusted,
     note: row.note,
     candidate: reviveOutcome(row.candidate),

@@ -60,6 +60,8 @@ describe('the trial report', () => {
       'singular-6',
     ]);
     expect(detail.matrices[2]!.condition).toBe(Infinity);
+    // The reference solver's growth factor per matrix; the singular one was stored without.
+    expect(detail.matrices.map((m) => m.referenceGrowth)).toEqual([1, 2.25, null]);
     expect(detail.matrices[1]!.incumbent!.metrics.factorRatio).toBe(Infinity);
     expect(detail.matrices[0]!.candidate.metrics.factorRatio).toBe(0.42);
     expect(detail.timing).toEqual([

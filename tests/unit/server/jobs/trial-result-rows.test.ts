@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { TrialReport } from '@shared/trial-report.ts';
-import { forJsonb, timingResultRows } from '@server/jobs/trial-result-rows.ts';
+import { forJsonb, matrixResultRows, timingResultRows } from '@server/jobs/trial-result-rows.ts';
 
 describe('forJsonb', () => {
   it('turns non-finite numbers into the strings the trials API revives, and keeps the rest', () => {
@@ -42,5 +42,32 @@ describe('timingResultRows', () => {
       verdict: 'faster',
     });
     expect(row!.detail).toEqual(timing);
+  });
+});
+
+describe('matrixResultRows', () => {
+  it("keeps the reference solver's growth factor of each matrix in its own column", () => {
+    const matrix = (id: string, referenceGrowth: number | null) => ({
+      id,
+      family: 'uniform',
+      m: 4,
+      n: 4,
+      condition: 12,
+      conditionKind: 'estimate',
+      referenceGrowth,
+      expected: 'factor',
+      referenceTrusted: true,
+      note: '',
+      candidate: { status: 'ok', metrics: { factorRatio: 0.3 }, ms: 0.01 },
+      incumbent: null,
+      passed: true,
+      failures: [],
+    });
+    const report = { matrices: [matrix('a', 1.5), matrix('b', null)] } as unknown as TrialReport;
+    const rows = matrixResultRows(3, report);
+    expect(rows.map((r) => [r.matrixId, r.position, r.referenceGrowth])).toEqual([
+      ['a', 0, 1.5],
+      ['b', 1, null],
+    ]);
   });
 });
