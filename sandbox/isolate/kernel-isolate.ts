@@ -58,16 +58,23 @@ export async function startKernelSession(
   const isolate = new ivm.Isolate({ memoryLimit: limits.memoryMb });
   const timeout = limits.loadTimeoutMs;
   try {
-    const context = await isolate.createContext();
-    const api = await context.eval(inIsolatePrelude, { reference: true, timeout });
-    const [load, call, stage, runStaged, stagedResult] = (await Promise.all(
-      [0, 1, 2, 3, 4].map((i) => api.get(i, { reference: true })),
-    )) as ivm.Reference<Fn>[];
-    const script = await isolate.compileScript(
+    // Everything before the module's body runs only the engine's own code (the prelude, and a
+    // function expression wrapping the kernel), so it runs synchronously on this thread: each
+    // asynchronous step is a hand-over to isolated-vm's thread pool and back, which on a busy
+    // machine cost more than the work itself (benchmarks/README.md, sandbox-overhead).
+    const context = isolate.createContextSync();
+    const api = context.evalSync(inIsolatePrelude, { reference: true, timeout }) as ivm.Reference<
+      Fn[]
+    >;
+    const [load, call, stage, runStaged, stagedResult] = [0, 1, 2, 3, 4].map((i) =>
+      api.getSync(i, { reference: true }),
+    ) as ivm.Reference<Fn>[];
+    const script = isolate.compileScriptSync(
       `(function (module, exports) { "use strict";\n${js}\n})`,
       { filename: 'kernel.js' },
     );
-    const factory = await script.run(context, { reference: true, timeout });
+    const factory = script.runSync(context, { reference: true, timeout }) as ivm.Reference<Fn>;
+    // The module's body is the kernel's code: it runs asynchronously under the load timeout.
     const loaded: Envelope = await load!.apply(undefined, [factory.derefInto(), exportName], {
       timeout,
       result: { copy: true },
