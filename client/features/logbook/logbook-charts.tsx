@@ -26,7 +26,7 @@ export function LogbookCharts({ points, driftChecks, teamSlug, width }: ChartPro
       height: 260,
       marginLeft: 56,
       x: { type: 'utc', label: null },
-      y: { type: 'log', label: 'worst factor ratio', grid: true, tickFormat: '~g' },
+      y: { type: 'log', label: 'worst factor ratio', grid: true, tickFormat: '.2~g' },
       symbol: { domain: ['promotion', 'drift check'], range: ['circle', 'diamond'], legend: true },
       marks: [
         Plot.ruleX(promotions, { x: 'at', stroke: '#d9cfbb', strokeDasharray: '3,3' }),
@@ -70,7 +70,7 @@ export function LogbookCharts({ points, driftChecks, teamSlug, width }: ChartPro
       height: 260,
       marginLeft: 56,
       x: { type: 'utc', label: null },
-      y: { type: 'log', label: 'median time (ms)', grid: true, tickFormat: '~g' },
+      y: { type: 'log', label: 'median time (ms)', grid: true, tickFormat: '.2~g' },
       color: {
         domain: sizes.map((n) => `n = ${n}`),
         range: sizeColours,

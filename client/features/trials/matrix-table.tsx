@@ -38,7 +38,7 @@ function Pair({
   incumbent: number | undefined;
 }) {
   return (
-    <span className="block text-right font-mono text-xs leading-5">
+    <span className="block text-right font-mono text-xs leading-5 whitespace-nowrap">
       <span className="block" title="candidate">
         {formatError(candidate)}
       </span>
@@ -108,7 +108,7 @@ export function MatrixTable({
           const inc = headlineRatio(m.incumbent);
           return (
             <span className="flex items-center justify-end gap-2">
-              <span className="text-right font-mono text-xs leading-5">
+              <span className="text-right font-mono text-xs leading-5 whitespace-nowrap">
                 <span className="block">{formatRatio(cand)}</span>
                 <span className="block text-ink-soft">{formatRatio(inc)}</span>
               </span>
@@ -142,7 +142,7 @@ export function MatrixTable({
           }
           return (
             <span className="flex items-center justify-end gap-2">
-              <span className="text-right font-mono text-xs leading-5">
+              <span className="text-right font-mono text-xs leading-5 whitespace-nowrap">
                 <span className="block">{formatRatio(cand)}</span>
                 <span className="block text-ink-soft">{formatRatio(inc)}</span>
               </span>
@@ -174,7 +174,7 @@ export function MatrixTable({
         header: 'Growth',
         sortingFn: numeric((m) => m.candidate.metrics.growthFactor),
         cell: (c) => (
-          <span className="block text-right font-mono text-xs leading-5">
+          <span className="block text-right font-mono text-xs leading-5 whitespace-nowrap">
             <span className="block">{formatRatio(c.getValue())}</span>
             <span className="block text-ink-soft">
               {formatRatio(c.row.original.incumbent?.metrics.growthFactor)}
