@@ -5,6 +5,8 @@
  * storage, entry (i, j) at w[i*n + j], V below the diagonal of the panel's columns as
  * householder-qr.ts stores it. No argument checks: the caller is householderQr.
  */
+import { subtractRowProducts } from '@sandbox/reference/row-block-update.ts';
+
 /** v_p's entry in row i (p = k0 + c): 1 on the diagonal, 0 above it, the stored value below. */
 function reflectorEntry(w: Float64Array, n: number, i: number, p: number): number {
   return i === p ? 1 : i < p ? 0 : w[i * n + p]!;
@@ -102,7 +104,8 @@ export function applyBlockReflector(
       for (let j = k1; j < n; j++) wt[wc + j] = wt[wc + j]! + tqc * wt[wq + j]!;
     }
   }
-  // A₂ −= V W, two rows at a time where V is full (rows k1…m−1).
+  // A₂ −= V W: the triangular rows of V one by one, then the rows k1…m−1, where V is full,
+  // through the row-block kernel with W's rows as the source rows.
   for (let i = k0; i < k1; i++) {
     const ri = i * n;
     for (let c = 0; c <= i - k0; c++) {
@@ -111,52 +114,7 @@ export function applyBlockReflector(
       for (let j = k1; j < n; j++) w[ri + j] = w[ri + j]! - v * wt[wc + j]!;
     }
   }
-  let i = k1;
-  for (; i + 2 <= m; i += 2) {
-    const ri = i * n;
-    const si = ri + n;
-    let c = 0;
-    for (; c + 4 <= b; c += 4) {
-      const l0 = w[ri + k0 + c]!;
-      const l1 = w[ri + k0 + c + 1]!;
-      const l2 = w[ri + k0 + c + 2]!;
-      const l3 = w[ri + k0 + c + 3]!;
-      const m0 = w[si + k0 + c]!;
-      const m1 = w[si + k0 + c + 1]!;
-      const m2 = w[si + k0 + c + 2]!;
-      const m3 = w[si + k0 + c + 3]!;
-      const u0 = c * n;
-      const u1 = u0 + n;
-      const u2 = u1 + n;
-      const u3 = u2 + n;
-      for (let j = k1; j < n; j++) {
-        const a0 = wt[u0 + j]!;
-        const a1 = wt[u1 + j]!;
-        const a2 = wt[u2 + j]!;
-        const a3 = wt[u3 + j]!;
-        w[ri + j] = w[ri + j]! - l0 * a0 - l1 * a1 - l2 * a2 - l3 * a3;
-        w[si + j] = w[si + j]! - m0 * a0 - m1 * a1 - m2 * a2 - m3 * a3;
-      }
-    }
-    for (; c < b; c++) {
-      const l = w[ri + k0 + c]!;
-      const mm = w[si + k0 + c]!;
-      const wc = c * n;
-      for (let j = k1; j < n; j++) {
-        const x = wt[wc + j]!;
-        w[ri + j] = w[ri + j]! - l * x;
-        w[si + j] = w[si + j]! - mm * x;
-      }
-    }
-  }
-  for (; i < m; i++) {
-    const ri = i * n;
-    for (let c = 0; c < b; c++) {
-      const l = w[ri + k0 + c]!;
-      const wc = c * n;
-      for (let j = k1; j < n; j++) w[ri + j] = w[ri + j]! - l * wt[wc + j]!;
-    }
-  }
+  subtractRowProducts(w, n, k1, m, k0, k1, k1, n, wt, 0);
 }
 
 /**
@@ -193,7 +151,23 @@ function accumulateFullRows(
       const b3 = w[r3 + p + 1]!;
       const wc = c * n;
       const wd = wc + n;
-      for (let j = k1; j < n; j++) {
+      // Two columns per iteration (V8 does not unroll loops; as in row-block-update.ts).
+      let j = k1;
+      for (; j + 2 <= n; j += 2) {
+        const x0 = w[r0 + j]!;
+        const x1 = w[r1 + j]!;
+        const x2 = w[r2 + j]!;
+        const x3 = w[r3 + j]!;
+        wt[wc + j] = wt[wc + j]! + a0 * x0 + a1 * x1 + a2 * x2 + a3 * x3;
+        wt[wd + j] = wt[wd + j]! + b0 * x0 + b1 * x1 + b2 * x2 + b3 * x3;
+        const y0 = w[r0 + j + 1]!;
+        const y1 = w[r1 + j + 1]!;
+        const y2 = w[r2 + j + 1]!;
+        const y3 = w[r3 + j + 1]!;
+        wt[wc + j + 1] = wt[wc + j + 1]! + a0 * y0 + a1 * y1 + a2 * y2 + a3 * y3;
+        wt[wd + j + 1] = wt[wd + j + 1]! + b0 * y0 + b1 * y1 + b2 * y2 + b3 * y3;
+      }
+      if (j < n) {
         const x0 = w[r0 + j]!;
         const x1 = w[r1 + j]!;
         const x2 = w[r2 + j]!;
