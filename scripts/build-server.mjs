@@ -6,6 +6,8 @@ await build({
     main: 'server/main.ts',
     migrate: 'server/db/migrate.ts',
     worker: 'server/worker.ts',
+    // The worker's trial process: started by the worker from beside its own bundle.
+    'trial-child': 'sandbox/trial-process/trial-child.ts',
     'fake-github': 'server/fake-github/main.ts',
     'fake-smtp': 'server/fake-smtp/main.ts',
     // Loaded by the type-check pool as a worker thread beside the bundle that uses it

@@ -62,6 +62,14 @@ const envFields = z.object({
   /** Time budget per timing size (both kernels together); the engine's default when unset. */
   TRIAL_TIMING_BUDGET_MS: z.coerce.number().int().min(0).max(600_000).optional(),
   /**
+   * Wall-clock limit for one whole trial in the worker's trial process, after which the process
+   * is killed and the trial fails (a kernel that no limit of its isolate stops). Below the trial
+   * job's 30-minute expiry, so that the trial is recorded before pg-boss would try it again.
+   */
+  TRIAL_DEADLINE_SECONDS: z.coerce.number().int().min(5).max(1500).default(900),
+  /** Memory cap of the worker's trial process (resident set, and its JavaScript heap). */
+  TRIAL_PROCESS_MEMORY_MB: z.coerce.number().int().min(256).max(65_536).default(2048),
+  /**
    * How often pg-boss's maintenance runs: it turns jobs whose worker died (active past their
    * expiry) into retries. A dead worker's trial is retried within expiry + this.
    */

@@ -1,6 +1,7 @@
 import type { Logger } from 'pino';
 import type { TrialStatus } from '@shared/states.ts';
-import { runTrial } from '@sandbox/trial.ts';
+import type { TrialReport } from '@shared/trial-report.ts';
+import { runTrial, type TrialInput } from '@sandbox/trial.ts';
 import { createProgressWriter } from './progress-writer.ts';
 import { TrialCannotRun } from './trial-cannot-run.ts';
 import { finishTrial, type TrialFinishDeps } from './trial-finish.ts';
@@ -14,8 +15,16 @@ export interface TrialLimits {
   timingBudgetMs?: number | undefined;
 }
 
+/**
+ * Runs the engine on one trial's input. The worker process runs each trial in its trial process
+ * (sandbox/trial-process/trial-process.ts), which can kill a kernel that no limit of its isolate
+ * stops; in-process runTrial, the default, serves tests and the demo loader.
+ */
+export type TrialRunner = (input: TrialInput) => Promise<TrialReport>;
+
 export interface TrialJobDeps extends TrialFinishDeps {
   limits: TrialLimits;
+  runTrial?: TrialRunner;
   logger: Pick<Logger, 'info' | 'warn' | 'error'>;
   progressIntervalMs?: number;
 }
@@ -32,8 +41,10 @@ export interface TrialJobResult {
  * Runs one `trial.run` job: starts a try (running, attempts + 1, stale results deleted), loads
  * the trial's inputs, runs the engine with progress written as it goes, and ends the trial in
  * one transaction. A finished trial is skipped, so redelivery is harmless. Inputs that cannot
- * be assembled end the trial as trial-failed at once. Anything else that throws (the database,
- * a fault of the harness) fails the job, and pg-boss tries again; the next try starts afresh.
+ * be assembled end the trial as trial-failed at once, and so does a trial its trial process had
+ * to stop (the runner reports it as trial-failed, the kernel's fault, written once). Anything
+ * else that throws (the database, a fault of the harness) fails the job, and pg-boss tries
+ * again; the next try starts afresh.
  */
 export async function runTrialJob(deps: TrialJobDeps, trialId: number): Promise<TrialJobResult> {
   const start = await startAttempt(deps.db, trialId);
@@ -63,7 +74,7 @@ export async function runTrialJob(deps: TrialJobDeps, trialId: number): Promise<
   );
   let report;
   try {
-    report = await runTrial({
+    report = await (deps.runTrial ?? runTrial)({
       ...input,
       callTimeoutMs: deps.limits.callTimeoutMs,
       memoryLimitMb: deps.limits.memoryLimitMb,
