@@ -14,6 +14,14 @@ const verdictSignal: Record<string, Signal> = {
   'no clear difference': 'near',
 };
 
+/** The engine's timing flags (sandbox/timing/interleaved.ts) in words; an unknown one as it is. */
+const timingFlagWords: Record<string, string> = {
+  'candidate-stuck-slow': 'candidate stuck slow: most blocks ran well above its warm time',
+  'incumbent-stuck-slow': 'incumbent stuck slow: most blocks ran well above its warm time',
+  'candidate-failed': 'candidate failed while timed',
+  'incumbent-failed': 'incumbent failed while timed',
+};
+
 /** Per timing size: medians, GFLOP/s, the ratio with its 95 % interval, and the verdict. */
 export function TimingTable({ timing }: { timing: readonly TimingReport[] }) {
   return (
@@ -75,7 +83,9 @@ export function TimingTable({ timing }: { timing: readonly TimingReport[] }) {
                   <span className="text-ink-soft">{t.message ?? 'not judged'}</span>
                 )}
                 {t.flags.length > 0 ? (
-                  <span className="mt-1 block text-xs text-ink-soft">{t.flags.join(', ')}</span>
+                  <span className="mt-1 block text-xs text-ink-soft">
+                    {t.flags.map((f) => timingFlagWords[f] ?? f).join('; ')}
+                  </span>
                 ) : null}
               </td>
             </tr>
