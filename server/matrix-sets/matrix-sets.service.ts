@@ -71,7 +71,10 @@ export async function getMatrixSet(
   id: number,
 ): Promise<MatrixSetDetail> {
   const set = await setAccess(db, user, id, false);
-  const [items, routines] = await Promise.all([listItems(db, id), routinesUsing(db, id)]);
+  // In turn, not at once: the demo loader calls createMatrixSet with its transaction as `db`,
+  // and a transaction's one connection takes one query at a time.
+  const items = await listItems(db, id);
+  const routines = await routinesUsing(db, id);
   return { ...toSummary(set), items: items.map(describeItem), routines };
 }
 

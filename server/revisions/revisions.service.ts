@@ -28,10 +28,10 @@ export async function finishSubmission(
 ): Promise<Submission> {
   const { candidate, revision, trial } = submitted;
   if (trial && queue) await queue.enqueueTrial(trial.id);
-  const [summary, stored] = await Promise.all([
-    findCandidateSummary(db, candidate.id),
-    findRevision(db, revision.id),
-  ]);
+  // In turn, not at once: the demo loader submits with its transaction as `db`, and a
+  // transaction's one connection takes one query at a time (pg deprecates queueing them).
+  const summary = await findCandidateSummary(db, candidate.id);
+  const stored = await findRevision(db, revision.id);
   return {
     candidate: toCandidateSummary(summary!),
     revision: toRevision(stored!),

@@ -23,10 +23,8 @@ function starterSource(contract: RoutineSlug): string {
 
 async function incumbentOf(db: Db, routine: RoutineRow): Promise<RoutineIncumbent | null> {
   if (!routine.incumbentRevisionId) return null;
-  const [revision, promotions] = await Promise.all([
-    findIncumbentRevision(db, routine.incumbentRevisionId),
-    incumbentPromotionByRoutine(db, [routine]),
-  ]);
+  const revision = await findIncumbentRevision(db, routine.incumbentRevisionId);
+  const promotions = await incumbentPromotionByRoutine(db, [routine]);
   if (!revision) return null;
   const p = promotions.get(routine.id);
   return {
@@ -49,11 +47,11 @@ export async function routineDetail(
   routine: RoutineRow,
   myRole: TeamRole,
 ): Promise<RoutineDetail> {
-  const [[summary], set, incumbent] = await Promise.all([
-    summarizeRoutines(db, [routine]),
-    findMatrixSet(db, routine.matrixSetId),
-    incumbentOf(db, routine),
-  ]);
+  // In turn, not at once: the demo loader calls createRoutine with its transaction as `db`,
+  // and a transaction's one connection takes one query at a time.
+  const [summary] = await summarizeRoutines(db, [routine]);
+  const set = await findMatrixSet(db, routine.matrixSetId);
+  const incumbent = await incumbentOf(db, routine);
   return {
     ...summary!,
     description: routine.description,

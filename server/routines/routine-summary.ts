@@ -54,10 +54,9 @@ function zeroCounts(): OpenCandidateCounts {
 /** Routines as listed: headline figures of the incumbent and open candidates per state. */
 export async function summarizeRoutines(db: Db, rows: RoutineRow[]): Promise<RoutineSummary[]> {
   const ids = rows.map((r) => r.id);
-  const [promotionsByRoutine, counts] = await Promise.all([
-    incumbentPromotionByRoutine(db, rows),
-    openCandidateCounts(db, ids),
-  ]);
+  // In turn, not at once: `db` may be a transaction (routine-detail.ts).
+  const promotionsByRoutine = await incumbentPromotionByRoutine(db, rows);
+  const counts = await openCandidateCounts(db, ids);
   const countsByRoutine = new Map(ids.map((id) => [id, zeroCounts()]));
   for (const c of counts) {
     const entry = countsByRoutine.get(c.routineId);

@@ -85,31 +85,39 @@ export async function listTeamsFor(
 /** How many members, maintainers, routines, matrix sets, uploads and live invitations a team has. */
 export async function teamCounts(db: Db, teamId: number) {
   const countOf = async (query: Promise<{ n: number }[]>) => (await query)[0]?.n ?? 0;
-  const [members, maintainers, routineCount, sets, files, pending] = await Promise.all([
-    countOf(db.select({ n: count() }).from(memberships).where(eq(memberships.teamId, teamId))),
-    countOf(
-      db
-        .select({ n: count() })
-        .from(memberships)
-        .where(and(eq(memberships.teamId, teamId), eq(memberships.role, 'maintainer'))),
-    ),
-    countOf(db.select({ n: count() }).from(routines).where(eq(routines.teamId, teamId))),
-    countOf(db.select({ n: count() }).from(matrixSets).where(eq(matrixSets.teamId, teamId))),
-    countOf(db.select({ n: count() }).from(uploads).where(eq(uploads.teamId, teamId))),
-    countOf(
-      db
-        .select({ n: count() })
-        .from(invitations)
-        .where(
-          and(
-            eq(invitations.teamId, teamId),
-            isNull(invitations.acceptedAt),
-            isNull(invitations.revokedAt),
-            gt(invitations.expiresAt, new Date()),
-          ),
+  // In turn, not at once: the demo loader calls createTeam with its transaction as `db`, and
+  // a transaction's one connection takes one query at a time.
+  const members = await countOf(
+    db.select({ n: count() }).from(memberships).where(eq(memberships.teamId, teamId)),
+  );
+  const maintainers = await countOf(
+    db
+      .select({ n: count() })
+      .from(memberships)
+      .where(and(eq(memberships.teamId, teamId), eq(memberships.role, 'maintainer'))),
+  );
+  const routineCount = await countOf(
+    db.select({ n: count() }).from(routines).where(eq(routines.teamId, teamId)),
+  );
+  const sets = await countOf(
+    db.select({ n: count() }).from(matrixSets).where(eq(matrixSets.teamId, teamId)),
+  );
+  const files = await countOf(
+    db.select({ n: count() }).from(uploads).where(eq(uploads.teamId, teamId)),
+  );
+  const pending = await countOf(
+    db
+      .select({ n: count() })
+      .from(invitations)
+      .where(
+        and(
+          eq(invitations.teamId, teamId),
+          isNull(invitations.acceptedAt),
+          isNull(invitations.revokedAt),
+          gt(invitations.expiresAt, new Date()),
         ),
-    ),
-  ]);
+      ),
+  );
   return {
     members,
     maintainers,
