@@ -1,6 +1,7 @@
 import type { Benchmark } from './benchmark.ts';
 import { factorisationsBenchmark } from './factorisations.bench.ts';
 import { sandboxOverheadBenchmark } from './sandbox-overhead.bench.ts';
+import { serviceBenchmark } from './service.bench.ts';
 import { timingCalibrationBenchmark } from './timing-calibration.bench.ts';
 import { trialCostBenchmark } from './trial-cost.bench.ts';
 
@@ -10,4 +11,5 @@ export const benchmarks: Benchmark[] = [
   sandboxOverheadBenchmark,
   timingCalibrationBenchmark,
   trialCostBenchmark,
+  serviceBenchmark,
 ];

@@ -16,6 +16,7 @@ describe('benchmarks in smoke mode', () => {
         'sandbox-overhead',
         'timing-calibration',
         'trial-cost',
+        'service',
       ]),
     );
     for (const name of names) expect(name).toMatch(/^[a-z]+(-[a-z]+)*$/);
