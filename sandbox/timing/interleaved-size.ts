@@ -79,8 +79,12 @@ export async function timeOneSize<TInput>(plan: SizeTimingPlan<TInput>): Promise
     for (const [role, ms] of Object.entries(times)) raw.warmMs[role as KernelRole].push(ms);
     warmup ??= plan.warmup(Math.max(...Object.values(times)));
   }
-  // One round costs about the sum of each kernel's last (warmest) warm-up call.
-  const roundMs = (raw.warmMs.candidate.at(-1) ?? 0) + (raw.warmMs.incumbent.at(-1) ?? 0);
+  // One round costs about the sum of each kernel's fastest warm-up call: the minimum is the
+  // robust location under positive timing noise (Chen & Revels, arXiv:1608.04295, 2016), so a
+  // warm-up call that a busy machine delayed does not cut the rounds (one round per block leaves
+  // the block's estimate at the mercy of a single delayed call).
+  const fastest = (ms: number[]) => (ms.length === 0 ? 0 : Math.min(...ms));
+  const roundMs = fastest(raw.warmMs.candidate) + fastest(raw.warmMs.incumbent);
   raw.plannedRounds = chooseRounds({
     budgetMs: plan.budgetMs,
     roundMs,

@@ -95,6 +95,21 @@ describe('runInterleavedTiming: call order and warm-up', () => {
     ]);
     expect(log.filter((c) => c.input.n === 3 && c.kernel === 'I').length).toBe(2 * (2 + 15));
   });
+  it('plans rounds from the fastest warm-up calls, so one delayed call does not cut them', async () => {
+    // Candidate warm-up calls 30 ms (first), 1 ms, 9 ms (delayed); incumbent 1 ms each. A round
+    // costs 1 + 1 = 2 ms, so a budget of 20 ms buys 10 rounds (the last call would give 2).
+    const [size] = await runInterleavedTiming({
+      sizes: [4],
+      routine: 'cholesky',
+      candidate: fakeKernel('C', [], (k) => ({ ok: true, ms: [30, 1, 9][k] ?? 1 })),
+      incumbent: fakeKernel('I', [], constant(1)),
+      makeInput: inputMaker(),
+      blocks: 1,
+      budgetMs: 20,
+      warmup: 3,
+    });
+    expect(size!.rounds).toBe(10);
+  });
 });
 
 describe('runInterleavedTiming: results', () => {
