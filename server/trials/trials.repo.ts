@@ -1,4 +1,4 @@
-import { asc, count, desc, eq } from 'drizzle-orm';
+import { asc, count, desc, eq, sql } from 'drizzle-orm';
 import { revisions } from '@server/db/schema/revisions.ts';
 import { trialMatrixResults, trialTimingResults } from '@server/db/schema/trial-results.ts';
 import { trials } from '@server/db/schema/trials.ts';
@@ -16,13 +16,51 @@ export interface TrialWithCandidate {
 
 const withCandidate = { trial: trials, candidateId: revisions.candidateId };
 
+/**
+ * The trial report's three reads as prepared statements, one set per database handle: Drizzle
+ * builds their SQL once instead of on every request, and PostgreSQL parses and plans each once
+ * per connection. Measured side by side on the service benchmark's seeded database (10 000
+ * trials, interleaved, load 7): the three reads cost the app 2.8 ms of CPU built afresh and
+ * 1.6 ms prepared, of about 5 ms for a whole report request.
+ */
+function prepareReads(db: DbOrTx) {
+  const id = sql.placeholder('id');
+  return {
+    trial: db
+      .select(withCandidate)
+      .from(trials)
+      .innerJoin(revisions, eq(revisions.id, trials.revisionId))
+      .where(eq(trials.id, id))
+      .limit(1)
+      .prepare('trials_find'),
+    matrices: db
+      .select()
+      .from(trialMatrixResults)
+      .where(eq(trialMatrixResults.trialId, id))
+      .orderBy(asc(trialMatrixResults.position), asc(trialMatrixResults.id))
+      .prepare('trials_matrix_results'),
+    timing: db
+      .select()
+      .from(trialTimingResults)
+      .where(eq(trialTimingResults.trialId, id))
+      .orderBy(asc(trialTimingResults.n))
+      .prepare('trials_timing_results'),
+  };
+}
+
+const preparedReads = new WeakMap<DbOrTx, ReturnType<typeof prepareReads>>();
+
+function reads(db: DbOrTx): ReturnType<typeof prepareReads> {
+  let found = preparedReads.get(db);
+  if (!found) {
+    found = prepareReads(db);
+    preparedReads.set(db, found);
+  }
+  return found;
+}
+
 export async function findTrial(db: DbOrTx, id: number): Promise<TrialWithCandidate | null> {
-  const [row] = await db
-    .select(withCandidate)
-    .from(trials)
-    .innerJoin(revisions, eq(revisions.id, trials.revisionId))
-    .where(eq(trials.id, id))
-    .limit(1);
+  const [row] = await reads(db).trial.execute({ id });
   return row ?? null;
 }
 
@@ -80,17 +118,9 @@ export async function listTrialsOf(
 }
 
 export async function matrixResultsOf(db: DbOrTx, trialId: number): Promise<MatrixResultRow[]> {
-  return db
-    .select()
-    .from(trialMatrixResults)
-    .where(eq(trialMatrixResults.trialId, trialId))
-    .orderBy(asc(trialMatrixResults.position), asc(trialMatrixResults.id));
+  return reads(db).matrices.execute({ id: trialId });
 }
 
 export async function timingResultsOf(db: DbOrTx, trialId: number): Promise<TimingResultRow[]> {
-  return db
-    .select()
-    .from(trialTimingResults)
-    .where(eq(trialTimingResults.trialId, trialId))
-    .orderBy(asc(trialTimingResults.n));
+  return reads(db).timing.execute({ id: trialId });
 }
