@@ -8,7 +8,10 @@ import { z } from 'zod';
 export const kernelDiagnosticSchema = z.object({
   line: z.number().int().min(1),
   column: z.number().int().min(1),
-  /** `TS2322` for TypeScript's codes; `syntax`, `source-too-large`, `kernel-import` otherwise. */
+  /**
+   * `TS2322` for TypeScript's codes; `syntax`, `source-too-large`, `kernel-import` or
+   * `type-check-cut-off` (the check ran past its time or memory limit) otherwise.
+   */
   code: z.string(),
   message: z.string(),
   /** Where the problem is: the kernel's source, or the contract it is checked against. */
