@@ -11,7 +11,7 @@ export type LoadOutcome<R extends RoutineSlug> =
   | {
       ok: true;
       kernel: KernelInstance<R>;
-      /** esbuild plus the type check. */
+      /** esbuild plus the type check (nothing for it when `typeCheck` is `skip`). */
       compileMs: number;
       /** Starting the isolate and running the module's top level. */
       loadMs: number;
