@@ -1,6 +1,7 @@
 import * as Plot from '@observablehq/plot';
 import type { TimingReport } from '@shared/trial-report.ts';
 import { PlotFigure } from './plot-figure.tsx';
+import { ratioTicks } from './ratio-ticks.ts';
 
 interface Row {
   n: string;
@@ -15,28 +16,6 @@ const verdictColour: Record<string, string> = {
   slower: '#c4432b',
   'no clear difference': '#b7791f',
 };
-
-/** Tick values from finer to coarser steps; the first set that fits the domain uncrowded wins. */
-const tickSets = [
-  [0.6, 0.7, 0.8, 0.9, 1, 1.1, 1.2, 1.3, 1.4, 1.6],
-  [0.25, 0.5, 0.75, 1, 1.5, 2, 3],
-  [0.1, 0.2, 0.5, 1, 2, 5, 10],
-  [0.001, 0.01, 0.1, 1, 10, 100, 1000],
-];
-
-/**
- * Ticks for the ratio axis on [lo, hi]: at least two inside the domain, and on the log scale no
- * two closer than an eighth of the domain's width, so that their labels do not collide.
- */
-function ratioTicks(lo: number, hi: number): number[] {
-  const span = Math.log10(hi / lo);
-  for (const set of tickSets) {
-    const inside = set.filter((t) => t >= lo && t <= hi);
-    const gaps = inside.slice(1).map((t, i) => Math.log10(t / inside[i]!));
-    if (inside.length >= 2 && Math.min(...gaps) >= span / 8) return inside;
-  }
-  return tickSets.at(-1)!.filter((t) => t >= lo && t <= hi);
-}
 
 /** The time ratio (candidate ÷ incumbent) per size with its 95 % interval, around 1.0×. */
 export function TimingPlot({ timing }: { timing: readonly TimingReport[] }) {
