@@ -11,6 +11,7 @@ import { createFakeGithubApp } from '@server/fake-github/fake-github-app.ts';
 import { startFakeSmtpServer, type FakeSmtpServer } from '@server/fake-smtp/fake-smtp-server.ts';
 import { deliverPendingEmail } from '@server/mail/outbox.ts';
 import { createMailTransport } from '@server/mail/transport.ts';
+import { parseWithNonFinite } from '@shared/json-numbers.ts';
 import { startTestApp, type RunningApp } from '@tests/helpers/test-app.ts';
 import {
   fakeTrialQueue,
@@ -36,7 +37,7 @@ export interface DemoTeamWorld {
   signIn: (login: string) => Promise<CookieJar>;
   /** Gives a browser context the person's session. */
   enter: (context: BrowserContext, jar: CookieJar) => Promise<void>;
-  /** A JSON read as a signed-in person. */
+  /** A JSON read as a signed-in person; "Infinity" and "NaN" strings read as numbers, as the client does. */
   read: (jar: CookieJar, path: string) => Promise<unknown>;
   close: () => Promise<void>;
 }
@@ -127,7 +128,7 @@ export async function startDemoTeamWorld(
       read: async (jar, path) => {
         const res = await fetch(`${app.url}/api${path}`, { headers: { cookie: jar.header() } });
         if (!res.ok) throw new Error(`GET /api${path} answered ${res.status}`);
-        return res.json();
+        return parseWithNonFinite(await res.text());
       },
       close: closeAll,
     };

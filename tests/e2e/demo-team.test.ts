@@ -4,6 +4,7 @@ import type { Browser, Locator, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { candidatePageSchema } from '@shared/api/candidates.ts';
 import { logbookSchema, type Logbook } from '@shared/api/logbook.ts';
+import { trialDetailSchema } from '@shared/api/trials.ts';
 import { routinePageSchema, type RoutineSummary } from '@shared/api/routines.ts';
 import { demoRoutines, type DemoRoutineKey } from '@server/demo/demo-routines.ts';
 import { demoStory, type DemoEvent } from '@server/demo/demo-story.ts';
@@ -251,6 +252,11 @@ describe('the demo team in Chromium', { timeout: 60_000 }, () => {
   it('keeps every label of the timing plot inside the figure on a trial timed against an incumbent', async () => {
     // The second promotion of the frame LU was timed against the first incumbent.
     const record = logbooks.get('lu')!.promotions[1]!;
+    // The measured ratios and intervals, to read beside a failure (they differ from run to run).
+    const trial = trialDetailSchema.parse(
+      await world.read(maintainer, `/trials/${record.trialId}`),
+    );
+    const measured = JSON.stringify(trial.timing.map((t) => [t.n, t.ratio, t.ci95, t.verdict]));
     for (const width of [1280, 1024]) {
       const page = await personPage(maintainer, width, 800);
       await page.goto(`${world.app.url}${trialHref(record.trialId)}`, {
@@ -267,8 +273,12 @@ describe('the demo team in Chromium', { timeout: 60_000 }, () => {
       );
       // Every tick of the ratio axis carries its label, not 1× alone.
       const tickLabels = texts.filter((t) => /^\d+(\.\d+)?×$/.test(t.text));
-      expect(tickLabels.map((t) => t.text)).toContain('1×');
-      expect(tickLabels.length, `tick labels at ${width} px`).toBeGreaterThanOrEqual(3);
+      const all = `${texts.map((t) => t.text).join(' | ')} — measured ${measured}`;
+      expect(
+        tickLabels.map((t) => t.text),
+        all,
+      ).toContain('1×');
+      expect(tickLabels.length, `tick labels at ${width} px: ${all}`).toBeGreaterThanOrEqual(3);
       expect(
         texts.filter((t) => t.outside).map((t) => t.text),
         `at ${width} px`,
