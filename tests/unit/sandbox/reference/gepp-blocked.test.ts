@@ -62,6 +62,28 @@ describe('luFactorPartialPivoting (blocked) against the plain loop', () => {
     expect(f.ok).toBe(false);
   });
 
+  it('stops at an exactly zero pivot inside either half of the recursive panel', () => {
+    // The panel is factored by halves down to a few columns; a zero pivot in any piece must end
+    // the whole factorisation at the same column as the plain loop. The rows of an upper
+    // triangular matrix with u_cc = 0, shuffled: every multiplier is exactly 0 (one nonzero per
+    // column among the rows not yet used), rows are swapped back into place, and column c has
+    // no nonzero left at step c, so the first zero pivot is exactly at c.
+    const n = nb + 9;
+    for (const c of [1, 3, 4, 5, 9, 15, 16, 17, 24, nb - 1, nb + 2]) {
+      const u = randomMatrix(n, n, 40 + c);
+      for (let i = 0; i < n; i++) for (let j = 0; j < i; j++) u[i * n + j] = 0;
+      u[c * n + c] = 0;
+      const a = new Float64Array(n * n);
+      for (let i = 0; i < n; i++) {
+        const from = (i * 7 + c) % n; // 7 is prime to n = 41, so this is a permutation
+        a.set(u.subarray(from * n, from * n + n), i * n);
+      }
+      const f = expectSame(a, n);
+      expect(f.ok).toBe(false);
+      if (!f.ok) expect(f.column).toBe(c);
+    }
+  });
+
   it('falls back to the plain loop on non-finite input, so NaN and Inf propagate alike', () => {
     const n = nb + 7;
     const a = randomMatrix(n, n, 9);
