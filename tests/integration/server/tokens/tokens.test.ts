@@ -9,6 +9,7 @@ import {
   type CreatedApiToken,
 } from '@shared/api/tokens.ts';
 import { hashSecret } from '@server/auth/api-token-secret.ts';
+import { LAST_USED_RESOLUTION_MS } from '@server/auth/token-auth.ts';
 import { apiTokens } from '@server/db/schema/api-tokens.ts';
 import { demoIdentities } from '@server/fake-github/demo-identities.ts';
 import { createTestUser, type TestUser } from '@tests/helpers/users.ts';
@@ -75,6 +76,32 @@ describe('API tokens', () => {
       await (await fetch(api('/tokens'), { headers: owner.headers })).json(),
     );
     expect(page.items.find((t) => t.id === created.id)?.lastUsedAt).not.toBeNull();
+  });
+
+  it('writes the last use at most once a minute per token', async () => {
+    const created = await create(owner.headers, 'busy runner');
+    const lastUsed = async () => {
+      const [row] = await world.app.database.db
+        .select({ at: apiTokens.lastUsedAt })
+        .from(apiTokens)
+        .where(eq(apiTokens.id, created.id));
+      return row!.at;
+    };
+    expect((await fetch(api('/me'), { headers: bearer(created.token) })).status).toBe(200);
+    const first = await lastUsed();
+    expect(first).not.toBeNull();
+    expect((await fetch(api('/me'), { headers: bearer(created.token) })).status).toBe(200);
+    expect((await lastUsed())?.getTime()).toBe(first!.getTime());
+    // A use more than a minute after the recorded one is written again.
+    const longAgo = new Date(Date.now() - 2 * LAST_USED_RESOLUTION_MS);
+    await world.app.database.db
+      .update(apiTokens)
+      .set({ lastUsedAt: longAgo })
+      .where(eq(apiTokens.id, created.id));
+    expect((await fetch(api('/me'), { headers: bearer(created.token) })).status).toBe(200);
+    expect((await lastUsed())!.getTime()).toBeGreaterThan(
+      longAgo.getTime() + LAST_USED_RESOLUTION_MS,
+    );
   });
 
   it('lists only the caller’s own tokens, newest first, a page at a time', async () => {
