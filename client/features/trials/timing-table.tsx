@@ -63,7 +63,17 @@ export function TimingTable({ timing }: { timing: readonly TimingReport[] }) {
           {timing.map((t) => (
             <tr key={t.n} className="border-b border-rule">
               <td className="px-2 py-2 text-right">{t.n}</td>
-              <td className="px-2 py-2 text-right">{t.rounds}</td>
+              <td className="px-2 py-2 text-right">
+                {t.rounds}
+                {t.blocks ? (
+                  <span
+                    className="block text-ink-soft"
+                    title="each block times both kernels in fresh isolates"
+                  >
+                    in {t.blocks} blocks
+                  </span>
+                ) : null}
+              </td>
               <td className="px-2 py-2 text-right">
                 {formatMs(t.candidateDetail?.medianMs ?? t.candidate)}
               </td>
@@ -73,7 +83,17 @@ export function TimingTable({ timing }: { timing: readonly TimingReport[] }) {
               <td className="px-2 py-2 text-right">{formatGflops(t.candidateDetail?.gflops)}</td>
               <td className="px-2 py-2 text-right">{formatGflops(t.incumbentDetail?.gflops)}</td>
               <td className="px-2 py-2 text-right">{formatTimingRatio(t.ratio)}</td>
-              <td className="px-2 py-2 text-right">{formatInterval(t.ci95)}</td>
+              <td className="px-2 py-2 text-right">
+                {formatInterval(t.ci95)}
+                {t.betweenBlockSpread != null ? (
+                  <span
+                    className="block text-ink-soft"
+                    title="the interval is taken across the blocks' ratios; this is their spread"
+                  >
+                    blocks ±{(t.betweenBlockSpread * 100).toFixed(1)} %
+                  </span>
+                ) : null}
+              </td>
               <td className="px-2 py-2 font-sans">
                 {t.verdict ? (
                   <SignalBadge signal={verdictSignal[t.verdict] ?? 'neutral'}>
