@@ -283,6 +283,10 @@ describe('the demo team in Chromium', { timeout: 60_000 }, () => {
         texts.filter((t) => t.outside).map((t) => t.text),
         `at ${width} px`,
       ).toEqual([]);
+      // The timing table names the blocks the rounds ran in, as the report records them.
+      const blocks = trial.timing.find((t) => t.blocks)?.blocks;
+      expect(blocks, `blocks in the stored report: ${measured}`).toBeGreaterThan(0);
+      expect(await page.getByTestId('timing-table').textContent()).toContain(`in ${blocks} blocks`);
       await page.screenshot({
         path: path.join(screenshots, `demo-trial-${width}.png`),
         fullPage: true,
