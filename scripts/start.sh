@@ -46,8 +46,9 @@ if [ "${FAKE_SMTP_PORT:-2525}" != "0" ]; then
   node dist/server/fake-smtp.js &
   pids+=($!)
 fi
-# A worker ends itself with status 75 when a trial is stuck in an isolate that ignores its limits
-# (server/jobs/one-trial-at-a-time.ts); start a fresh one then, so the queue keeps moving.
+# Each trial runs in a trial process that the worker kills at TRIAL_DEADLINE_SECONDS
+# (sandbox/trial-process/). As a last resort, should a trial still outlive its job, the worker
+# ends itself with status 75 (server/jobs/one-trial-at-a-time.ts); start a fresh one then.
 run_worker() {
   while true; do
     node "${NODE_FLAGS[@]}" dist/server/worker.js && return 0
