@@ -1,5 +1,6 @@
 import type { PaginationQuery } from '@shared/api/pagination.ts';
 import type { TrialDetail, TrialEvent, TrialPage } from '@shared/api/trials.ts';
+import { stringifyWithNonFinite } from '@shared/json-numbers.ts';
 import type { CurrentUser } from '@server/auth/current-user.ts';
 import type { Db } from '@server/db/client.ts';
 import { AppError } from '@server/http/errors.ts';
@@ -23,9 +24,63 @@ async function trialAccess(db: Db, user: CurrentUser, id: number): Promise<Trial
   return found;
 }
 
+/**
+ * The served trial report as JSON text (non-finite numbers as strings). A finished trial never
+ * changes (a new try would first make it unfinished, with a new attempt number), so its text is
+ * kept in `cache` under its id, attempt and finishing time; the access check runs every time.
+ */
+export async function getTrialJson(
+  db: Db,
+  user: CurrentUser,
+  id: number,
+  cache: TrialJsonCache,
+): Promise<string> {
+  const found = await trialAccess(db, user, id);
+  const { trial } = found;
+  const key =
+    trial.finishedAt && trial.status !== 'queued' && trial.status !== 'running'
+      ? `${trial.id}:${trial.attempts}:${trial.finishedAt.toISOString()}`
+      : null;
+  const cached = key === null ? undefined : cache.get(key);
+  if (cached !== undefined) return cached;
+  const json = stringifyWithNonFinite(await trialDetailOf(db, found));
+  if (key !== null) cache.set(key, json);
+  return json;
+}
+
+/** Finished trials' report texts, the least recently used dropped beyond `capacity`. */
+export class TrialJsonCache {
+  readonly #entries = new Map<string, string>();
+  constructor(readonly capacity = 256) {}
+
+  get size(): number {
+    return this.#entries.size;
+  }
+
+  get(key: string): string | undefined {
+    const value = this.#entries.get(key);
+    if (value !== undefined) {
+      this.#entries.delete(key);
+      this.#entries.set(key, value);
+    }
+    return value;
+  }
+
+  set(key: string, value: string): void {
+    this.#entries.delete(key);
+    this.#entries.set(key, value);
+    while (this.#entries.size > this.capacity) {
+      this.#entries.delete(this.#entries.keys().next().value!);
+    }
+  }
+}
+
 /** A trial with its machine, phases, verdict and full results (candidate next to incumbent). */
-export async function getTrial(db: Db, user: CurrentUser, id: number): Promise<TrialDetail> {
-  const { trial, candidateId } = await trialAccess(db, user, id);
+async function trialDetailOf(
+  db: Db,
+  { trial, candidateId }: TrialWithCandidate,
+): Promise<TrialDetail> {
+  const id = trial.id;
   const [matrices, timing] = await Promise.all([matrixResultsOf(db, id), timingResultsOf(db, id)]);
   return {
     ...toTrialSummary(trial, candidateId),

@@ -1,3 +1,4 @@
+import { eq, sql } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { submissionSchema } from '@shared/api/candidates.ts';
 import {
@@ -9,6 +10,7 @@ import {
 import { parseWithNonFinite } from '@shared/json-numbers.ts';
 import { loadEnv } from '@server/config/env.ts';
 import { trialMatrixResults } from '@server/db/schema/trial-results.ts';
+import { trials } from '@server/db/schema/trials.ts';
 import {
   call,
   goodKernel,
@@ -67,6 +69,30 @@ describe('the trial report', () => {
     expect(detail.timing).toEqual([
       expect.objectContaining({ n: 64, ratio: 0.87, ci95: [0.84, 0.9], verdict: 'faster' }),
     ]);
+  });
+
+  it('serves a finished report again unchanged, checks access every time, and never keeps a running one', async () => {
+    const { trial } = await submitted();
+    const id = trial!.id;
+    const read = async (person = world.people.reviewer) => {
+      const res = await fetch(world.api(`/trials/${id}`), { headers: person.headers });
+      return { status: res.status, detail: parseWithNonFinite(await res.text()) };
+    };
+    await writeProgress(world.db, id, { phase: 'accuracy', done: 1, total: 3 });
+    expect((await read()).detail).toMatchObject({ status: 'running', matrices: [] });
+    await finishTrial(world.db, loadEnv({ PUBLIC_URL: world.app.url }), id);
+    const first = await read();
+    expect(first.detail).toMatchObject({ status: 'completed' });
+    expect((await read()).detail).toEqual(first.detail);
+    expect((await read(world.people.outsider)).status).toBe(404);
+    // A new try makes the trial unfinished again (attempts + 1, results deleted): the kept text
+    // of the finished one must not be served for it.
+    await world.db.delete(trialMatrixResults).where(eq(trialMatrixResults.trialId, id));
+    await world.db
+      .update(trials)
+      .set({ status: 'running', attempts: sql`${trials.attempts} + 1`, finishedAt: null })
+      .where(eq(trials.id, id));
+    expect((await read()).detail).toMatchObject({ status: 'running', matrices: [] });
   });
 
   it('exports the per-matrix table as CSV', async () => {
