@@ -92,6 +92,8 @@ export const timingReportSchema = z.object({
   blockRatios: z.array(z.number()).optional(),
   betweenBlockSpread: z.number().nullable().optional(),
   roundSpread: z.number().nullable().optional(),
+  /** Time inside kernel calls at this size, warm-up included (both kernels, every block). */
+  callMs: z.number().nonnegative().optional(),
 });
 export type TimingReport = z.infer<typeof timingReportSchema>;
 

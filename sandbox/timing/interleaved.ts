@@ -80,6 +80,8 @@ export interface SizeTiming {
   betweenBlockSpread: number | null;
   /** Robust sd of single rounds' log-ratios about their block's estimate; null as for ratio. */
   roundSpread: number | null;
+  /** Time spent inside kernel calls at this size: warm-up and rounds, both kernels, all blocks. */
+  callMs: number;
   flags: TimingFlag[];
   failure: TimingFailure | null;
 }
@@ -311,6 +313,14 @@ export async function runInterleavedTiming<TInput>(
     const c = compared[i] ? comparisons[next++]! : null;
     const all = (role: KernelRole) => blocks.flatMap((raw) => raw.roundMs[role]);
     const timed = blocks.filter((raw) => raw.roundMs.candidate.length > 0);
+    const sum = (ms: number[]) => ms.reduce((a, b) => a + b, 0);
+    const callMs = sum(
+      blocks.flatMap((raw) =>
+        (['candidate', 'incumbent'] as const).map(
+          (role) => sum(raw.warmMs[role]) + sum(raw.roundMs[role]),
+        ),
+      ),
+    );
     return {
       n,
       rounds: all('candidate').length,
@@ -326,6 +336,7 @@ export async function runInterleavedTiming<TInput>(
       blockRatios: c?.blockRatios ?? [],
       betweenBlockSpread: c?.betweenBlockSpread ?? null,
       roundSpread: c?.roundSpread ?? null,
+      callMs,
       flags: flagsOf(blocks, failures[i] ?? null, options.stuckSlowFactor ?? STUCK_SLOW_FACTOR),
       failure: failures[i] ?? null,
     };

@@ -37,6 +37,7 @@ export function toTimingReport(size: SizeTiming): TimingReport {
     blockRatios: [...size.blockRatios],
     betweenBlockSpread: size.betweenBlockSpread,
     roundSpread: size.roundSpread,
+    callMs: size.callMs,
     ...(failure === null ? {} : { message: failureMessage(failure) }),
   };
 }

@@ -94,6 +94,11 @@ describe('runInterleavedTiming: call order and warm-up', () => {
       [15, 15],
     ]);
     expect(log.filter((c) => c.input.n === 3 && c.kernel === 'I').length).toBe(2 * (2 + 15));
+    // Every call took 1 ms: the time inside calls counts warm-up and rounds of both kernels.
+    for (const [i, n] of [2, 3].entries()) {
+      expect(results[i]!.callMs).toBe(log.filter((c) => c.input.n === n).length);
+    }
+    expect(results[1]!.callMs).toBe(2 * 2 * (2 + 15));
   });
   it('plans rounds from the fastest warm-up calls, so one delayed call does not cut them', async () => {
     // Candidate warm-up calls 30 ms (first), 1 ms, 9 ms (delayed); incumbent 1 ms each. A round

@@ -20,6 +20,7 @@ const compared: SizeTiming = {
   blockRatios: [1.08, 1.12, 1.1, 1.09, 1.11, 1.1, 1.13, 1.07],
   betweenBlockSpread: 0.015,
   roundSpread: 0.04,
+  callMs: 80.5,
   flags: [],
   failure: null,
 };
@@ -37,6 +38,7 @@ describe('toTimingReport', () => {
       blockRatios: compared.blockRatios,
       betweenBlockSpread: 0.015,
       roundSpread: 0.04,
+      callMs: 80.5,
     });
     expect(report.message).toBeUndefined();
   });
