@@ -1,5 +1,6 @@
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
+import { DEFAULT_SIZE_BUDGET_MS } from '@sandbox/timing/interleaved.ts';
 import { DEFAULT_BLOCKS } from '@sandbox/timing/rounds.ts';
 import { runTrialTiming } from '@sandbox/trial/trial-timing.ts';
 import { goal, type Benchmark, type BenchmarkCheck } from './benchmark.ts';
@@ -102,9 +103,9 @@ export const timingCalibrationBenchmark: Benchmark = {
     const sizes = smoke ? [16] : [64, 128];
     const aaRepeats = smoke ? 2 : 100;
     const plantedRepeats = smoke ? 1 : 30;
-    // A shorter budget than a trial's default 1 s per size keeps the run to minutes; the
-    // rounds it buys are reported beside the rates.
-    const budgetMs = smoke ? 20 : 200;
+    // A trial's own budget per size (TRIAL_TIMING_BUDGET_MS unset), so the rates are a trial's;
+    // the rounds it buys are reported beside them.
+    const budgetMs = smoke ? 20 : DEFAULT_SIZE_BUDGET_MS;
     const all: Series[] = [];
     const checks: BenchmarkCheck[] = [];
     const verdictMs: number[] = [];

@@ -17,21 +17,27 @@ export const WARMUP_TIME_MS = 100;
 
 /**
  * Blocks of a timing run, each with a fresh isolate per kernel (block-comparison.ts). The verdict
- * bounds the ratio across the blocks' estimates with the exact signed-rank interval: 8 blocks give
- * the 95 % interval [W_(4), W_(33)] of the 36 Walsh averages (exact coverage 1 − 2·5/256 = 0.961)
- * and a smallest two-sided p-value of 2/2⁸ = 0.0078, below 0.05/6, so a single clear size can
- * survive Benjamini–Hochberg over up to six sizes. Fewer blocks than 8 cannot; more cost a fresh
- * isolate pair and its warm-up each, and the kernel calls of at least one round per size.
+ * bounds the ratio across the blocks' estimates with the exact signed-rank interval: 12 blocks give
+ * the 95 % interval [W_(14), W_(65)] of the 78 Walsh averages and a two-sided p-value of
+ * 4/2¹² ≈ 0.001 even when the block nearest zero falls on the wrong side, below 0.05/6, so a
+ * single clear size survives Benjamini–Hochberg over up to six sizes despite one stray block
+ * (8 blocks, the fewest whose smallest p-value 2/2⁸ lies below 0.05/6, could not: one stray block
+ * gave 4/2⁸ ≈ 0.016). Measured (benchmarks/README.md, timing-calibration): 8 blocks missed a
+ * planted +10 % in about a third of the trials on a quiet machine; 12 cost about 1.4× the timing
+ * time of 8. Each block costs a fresh isolate pair, its warm-up, and at least one round per size.
  */
-export const DEFAULT_BLOCKS = 8;
+export const DEFAULT_BLOCKS = 12;
 
 /**
  * Rounds per block and size: at least 1 (a block's estimate is then its one log-ratio; the call
- * order still alternates from block to block) and at most ⌈MAX_ROUNDS / DEFAULT_BLOCKS⌉, so that
- * the rounds of all blocks together stay within the generic bound.
+ * order still alternates from block to block) and at most 100. Single rounds are noisy at small
+ * n (measured on a quiet machine at n = 64, calls of about 0.13 ms: a robust sd of 0.16 in the
+ * log-ratio of one round), so a block needs many of them before its estimate is as steady as the
+ * isolate's own effect of 1–2 %: 100 rounds bring it to about 0.02 for 100 × 2 × 0.13 ms = 26 ms.
+ * At large n the time budget, not this bound, decides.
  */
 export const MIN_BLOCK_ROUNDS = 1;
-export const MAX_BLOCK_ROUNDS = Math.ceil(MAX_ROUNDS / DEFAULT_BLOCKS);
+export const MAX_BLOCK_ROUNDS = 100;
 
 /**
  * A later size in a block runs in isolates that are already warm (the same compiled code, other

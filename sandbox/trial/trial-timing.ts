@@ -21,6 +21,8 @@ export interface TrialTimingInput {
   budgetMs?: number | undefined;
   /** Blocks of fresh isolates (default DEFAULT_BLOCKS, sandbox/timing/rounds.ts). */
   blocks?: number | undefined;
+  /** Most timed rounds per block and size (default MAX_BLOCK_ROUNDS, sandbox/timing/rounds.ts). */
+  maxRoundsPerBlock?: number | undefined;
   margin: number;
   /** Called as each block starts and finishes a size: done of total (blocks × sizes) steps, at size n. */
   onProgress?: (done: number, total: number, n: number) => void;
@@ -106,6 +108,7 @@ export async function runTrialTiming(input: TrialTimingInput): Promise<TimingRep
     makeInput,
     ...(input.budgetMs !== undefined ? { budgetMs: input.budgetMs } : {}),
     ...(input.blocks !== undefined ? { blocks: input.blocks } : {}),
+    ...(input.maxRoundsPerBlock !== undefined ? { maxRounds: input.maxRoundsPerBlock } : {}),
     margin: input.margin,
     onProgress: (p) => {
       if (p.phase === 'timing') return;

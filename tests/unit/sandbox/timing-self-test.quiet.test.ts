@@ -1,11 +1,12 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
+import { DEFAULT_BLOCKS } from '@sandbox/timing/rounds.ts';
 import { runTrialTiming } from '@sandbox/trial/trial-timing.ts';
 
 // The timing self-test of the engine with real kernels in real isolates (no timed assertion:
 // only the verdicts are checked). numerics.md, "Timing": identical kernels must give
 // `no clear difference`; a planted slowdown well above the 3 % margin must give `slower`.
-// runTrialTiming times as a trial does: 8 blocks, each with a fresh isolate per kernel, so the
+// runTrialTiming times as a trial does: DEFAULT_BLOCKS blocks, each with a fresh isolate per kernel, so the
 // A/A pair below is two DIFFERENT isolates of one source in every block, whose lasting speed
 // difference of a few per cent the comparison across blocks must absorb. The test suite runs
 // many files at once on two cores; the A/A bound allows 2 of 12 verdicts to go astray, which
@@ -31,7 +32,7 @@ describe('timing verdicts on real kernels', () => {
       });
       verdicts.push(...sizes.map((s) => s.verdict ?? 'none'));
       ratios.push(...sizes.map((s) => s.ratio ?? Number.NaN));
-      for (const s of sizes) expect(s.blocks).toBe(8);
+      for (const s of sizes) expect(s.blocks).toBe(DEFAULT_BLOCKS);
     }
     const clear = verdicts.filter((v) => v === 'no clear difference').length;
     expect(verdicts).toHaveLength(12);
@@ -58,6 +59,6 @@ describe('timing verdicts on real kernels', () => {
     });
     expect(sizes.map((s) => s.verdict)).toEqual(['slower', 'slower']);
     expect(sizes.every((s) => s.ratio! > 1.5)).toBe(true);
-    expect(sizes.every((s) => s.blocks === 8)).toBe(true);
+    expect(sizes.every((s) => s.blocks === DEFAULT_BLOCKS)).toBe(true);
   });
 });

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { flopCount } from '@sandbox/timing/flops.ts';
 import { runInterleavedTiming, type TimingProgress } from '@sandbox/timing/interleaved.ts';
+import { DEFAULT_BLOCKS } from '@sandbox/timing/rounds.ts';
 import type { FreshKernels, TimedCall, TimedKernel } from '@sandbox/timing/timed-kernel.ts';
 import { seededNormal } from '@tests/helpers/seeded-random.ts';
 
@@ -152,14 +153,14 @@ describe('runInterleavedTiming: results', () => {
       warmup: 1,
     });
     expect(log.every((c) => c.kernel === 'C')).toBe(true);
-    // Budget 0: the minimum of one round in each of the 8 default blocks.
+    // Budget 0: the minimum of one round in each of the default blocks.
     expect(size).toMatchObject({
       incumbent: null,
       ratio: null,
       ci95: null,
       verdict: null,
-      rounds: 8,
-      blocks: 8,
+      rounds: DEFAULT_BLOCKS,
+      blocks: DEFAULT_BLOCKS,
       blockRatios: [],
     });
     expect(size!.candidate!.gflops).toBeCloseTo(flopCount('householder-qr', 10, 5) / 0.5e6, 12);
