@@ -10,6 +10,7 @@ import { evaluatePolicy } from './policy/evaluate-policy.ts';
 import { evaluateCase } from './trial/evaluate-case.ts';
 import { prepareCase } from './trial/prepare-case.ts';
 import { runTrialTiming } from './trial/trial-timing.ts';
+import { couldNotRunVerdict } from './trial/could-not-run-verdict.ts';
 
 export interface TrialProgress {
   phase: 'compile' | 'accuracy' | 'timing' | 'verdict';
@@ -223,16 +224,6 @@ function failedReport(
     diagnostics,
     matrices: [],
     timing: [],
-    verdict: {
-      passed: false,
-      rules: [
-        {
-          rule: 'factor-accuracy',
-          passed: false,
-          offenders: [],
-          reason: `The trial could not run: ${message}.`,
-        },
-      ],
-    },
+    verdict: couldNotRunVerdict(message),
   };
 }

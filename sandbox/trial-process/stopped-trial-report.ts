@@ -1,6 +1,7 @@
 import type { TrialReport } from '@shared/trial-report.ts';
 import { machineFingerprint } from '../timing/machine.ts';
 import type { TrialInputData } from './trial-messages.ts';
+import { couldNotRunVerdict } from '../trial/could-not-run-verdict.ts';
 
 /**
  * The report of a trial whose process had to be stopped, or died, before it reported: the
@@ -33,16 +34,6 @@ export function stoppedTrialReport(
     diagnostics: { candidate: [], incumbent: [] },
     matrices: [],
     timing: [],
-    verdict: {
-      passed: false,
-      rules: [
-        {
-          rule: 'factor-accuracy',
-          passed: false,
-          offenders: [],
-          reason: `The trial could not run: ${message}.`,
-        },
-      ],
-    },
+    verdict: couldNotRunVerdict(message),
   };
 }

@@ -9,6 +9,7 @@ import { createFakeGithubApp } from '@server/fake-github/fake-github-app.ts';
 import { createPgBossQueue, type PgBossQueue } from '@server/jobs/pg-boss-queue.ts';
 import { startTrialWorker } from '@server/jobs/trial-worker.ts';
 import { startTestApp, type RunningApp } from '@tests/helpers/test-app.ts';
+import { withDatabase } from '@tests/helpers/cluster-database.ts';
 
 /**
  * The served client with everything its pages need, each part real and on a free loopback
@@ -21,12 +22,6 @@ export interface ClientWorld {
   fakeUrl: string;
   queue: PgBossQueue;
   close: () => Promise<void>;
-}
-
-function withDatabase(url: string, database: string): string {
-  const copy = new URL(url);
-  copy.pathname = `/${database}`;
-  return copy.toString();
 }
 
 export async function startClientWorld(

@@ -1,6 +1,5 @@
 import type { Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
-import pg from 'pg';
 import { pino } from 'pino';
 import type { BrowserContext } from 'playwright-core';
 import { loadEnv } from '@server/config/env.ts';
@@ -18,6 +17,7 @@ import {
   type FakeTrialQueue,
 } from '@tests/integration/server/candidates/fake-trial-queue.ts';
 import { signInAs, type CookieJar } from '@tests/integration/server/auth/oauth-flow.ts';
+import { onCluster, withDatabase } from '@tests/helpers/cluster-database.ts';
 
 /**
  * The served client over the demo team: a database of its own with the demo story loaded
@@ -40,22 +40,6 @@ export interface DemoTeamWorld {
   /** A JSON read as a signed-in person; "Infinity" and "NaN" strings read as numbers, as the client does. */
   read: (jar: CookieJar, path: string) => Promise<unknown>;
   close: () => Promise<void>;
-}
-
-function withDatabase(url: string, database: string): string {
-  const copy = new URL(url);
-  copy.pathname = `/${database}`;
-  return copy.toString();
-}
-
-async function onCluster(testDatabaseUrl: string, statement: string) {
-  const client = new pg.Client({ connectionString: withDatabase(testDatabaseUrl, 'postgres') });
-  await client.connect();
-  try {
-    await client.query(statement);
-  } finally {
-    await client.end();
-  }
 }
 
 export async function startDemoTeamWorld(

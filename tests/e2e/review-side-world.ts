@@ -1,7 +1,6 @@
 import type { Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { eq } from 'drizzle-orm';
-import pg from 'pg';
 import type { BrowserContext } from 'playwright-core';
 import { loadEnv, type Env } from '@server/config/env.ts';
 import { migrateDatabase } from '@server/db/migrate.ts';
@@ -20,6 +19,7 @@ import {
 import { signInAs, type CookieJar } from '@tests/integration/server/auth/oauth-flow.ts';
 import { addMember, insertTeam, type TeamRef } from '@tests/helpers/team-fixture.ts';
 import type { TestUser } from '@tests/helpers/users.ts';
+import { onCluster, withDatabase } from '@tests/helpers/cluster-database.ts';
 
 /** A person signed in through the fake provider, with the session cookie a browser would hold. */
 export interface SignedIn {
@@ -49,22 +49,6 @@ export interface ReviewSideWorld {
   /** Hands the queued e-mail to the fake SMTP server, as the worker's sender does. */
   deliverMail: () => Promise<number>;
   close: () => Promise<void>;
-}
-
-function withDatabase(url: string, database: string): string {
-  const copy = new URL(url);
-  copy.pathname = `/${database}`;
-  return copy.toString();
-}
-
-async function onCluster(testDatabaseUrl: string, statement: string) {
-  const client = new pg.Client({ connectionString: withDatabase(testDatabaseUrl, 'postgres') });
-  await client.connect();
-  try {
-    await client.query(statement);
-  } finally {
-    await client.end();
-  }
 }
 
 export async function startReviewSideWorld(

@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
-import pg from 'pg';
 import { createDatabase, type Database } from '@server/db/client.ts';
 import { migrateDatabase } from '@server/db/migrate.ts';
+import { onCluster, withDatabase } from '@tests/helpers/cluster-database.ts';
 
 /**
  * A migrated database of its own on the test cluster, so the outbox tests count only the rows
@@ -11,8 +11,7 @@ export async function createPrivateDatabase(
   sharedUrl: string,
 ): Promise<{ url: string; open: (max?: number) => Database; drop: () => Promise<void> }> {
   const name = `mail_${randomUUID().replace(/-/g, '').slice(0, 16)}`;
-  const adminUrl = withDatabase(sharedUrl, 'postgres');
-  await runAdmin(adminUrl, `create database "${name}"`);
+  await onCluster(sharedUrl, `create database "${name}"`);
   const url = withDatabase(sharedUrl, name);
   await migrateDatabase(url);
   const opened: Database[] = [];
@@ -25,23 +24,7 @@ export async function createPrivateDatabase(
     },
     drop: async () => {
       await Promise.all(opened.map((d) => d.pool.end()));
-      await runAdmin(adminUrl, `drop database if exists "${name}" with (force)`);
+      await onCluster(sharedUrl, `drop database if exists "${name}" with (force)`);
     },
   };
-}
-
-async function runAdmin(url: string, statement: string): Promise<void> {
-  const client = new pg.Client({ connectionString: url });
-  await client.connect();
-  try {
-    await client.query(statement);
-  } finally {
-    await client.end();
-  }
-}
-
-function withDatabase(url: string, database: string): string {
-  const copy = new URL(url);
-  copy.pathname = `/${database}`;
-  return copy.toString();
 }
