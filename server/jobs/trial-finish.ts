@@ -1,5 +1,5 @@
 import { eq, sql } from 'drizzle-orm';
-import type { TrialReport } from '@shared/trial-report.ts';
+import { couldNotRunVerdict } from '@sandbox/trial/could-not-run-verdict.ts';
 import type { Env } from '@server/config/env.ts';
 import type { Db } from '@server/db/client.ts';
 import { trials } from '@server/db/schema/trials.ts';
@@ -20,20 +20,6 @@ export interface TrialFinishDeps {
   notify?: NotifyTrialFinished;
 }
 
-function cannotRunVerdict(message: string): TrialReport['verdict'] {
-  return {
-    passed: false,
-    rules: [
-      {
-        rule: 'factor-accuracy',
-        passed: false,
-        offenders: [],
-        reason: `The trial could not run: ${message}.`,
-      },
-    ],
-  };
-}
-
 function trialColumns(end: TrialEnd) {
   const status = finishedStatus(end);
   if (end.kind === 'report') {
@@ -51,7 +37,7 @@ function trialColumns(end: TrialEnd) {
   }
   return {
     status,
-    verdict: end.kind === 'cannot-run' ? cannotRunVerdict(end.message) : null,
+    verdict: end.kind === 'cannot-run' ? couldNotRunVerdict(end.message) : null,
     passed: end.kind === 'cannot-run' ? false : null,
     message: end.message,
     progress: { phase: 'done' as const, done: 0, total: 0 },
