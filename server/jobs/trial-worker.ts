@@ -1,4 +1,6 @@
+import { sql } from 'drizzle-orm';
 import type PgBoss from 'pg-boss';
+import type { Db } from '@server/db/client.ts';
 import { runDriftChecks } from '@server/drift/drift-checks.service.ts';
 import { oneTrialAtATime } from './one-trial-at-a-time.ts';
 import { defaultTrialJobOptions, TRIAL_DEAD_JOB, type TrialJobData } from './pg-boss-queue.ts';
@@ -41,7 +43,18 @@ export async function startTrialWorker(deps: TrialWorkerDeps): Promise<void> {
   await boss.work<TrialJobData>(
     TRIAL_JOB,
     { batchSize: 1, pollingIntervalSeconds: 0.5 },
-    async ([job]) => (job ? oneAtATime(job.data.trialId) : null),
+    async ([job]) => {
+      if (!job) return null;
+      try {
+        return await oneAtATime(job.data.trialId);
+      } catch (err) {
+        // A try that failed because the database went away (a restart) is reported to pg-boss
+        // only once the database answers again: pg-boss does not await its own fail(), so a
+        // failure reported into the outage is lost and the job waits for its expiry.
+        await untilDatabaseAnswers(deps.db);
+        throw err;
+      }
+    },
   );
   await boss.work<TrialJobData>(
     TRIAL_DEAD_JOB,
@@ -53,4 +66,17 @@ export async function startTrialWorker(deps: TrialWorkerDeps): Promise<void> {
     deps.logger.info({ count: started.length }, 'drift checks queued');
     return { started };
   });
+}
+
+/** Waits until the database answers a query, or `limitMs` has passed. */
+async function untilDatabaseAnswers(db: Db, limitMs = 60_000, everyMs = 250): Promise<void> {
+  const deadline = Date.now() + limitMs;
+  while (Date.now() < deadline) {
+    try {
+      await db.execute(sql`select 1`);
+      return;
+    } catch {
+      await new Promise((resolve) => setTimeout(resolve, everyMs));
+    }
+  }
 }

@@ -34,9 +34,9 @@ import { suiteTally } from '@tests/hardening/suite-tally.ts';
 const tally = suiteTally('faults', 'recovered');
 const kernel = readKernelSource('starters/lu-partial-pivoting.ts');
 const matrixSet = [
-  { family: 'uniform' as const, n: 40, seed: 1 },
-  { family: 'uniform' as const, n: 50, seed: 2 },
-  { family: 'uniform' as const, n: 60, seed: 3 },
+  { family: 'uniform' as const, n: 120, seed: 1 },
+  { family: 'uniform' as const, n: 160, seed: 2 },
+  { family: 'uniform' as const, n: 200, seed: 3 },
 ];
 /** Longest any single request may take while the database is away. */
 const requestLimitMs = 5_000;
@@ -142,16 +142,24 @@ describe('PostgreSQL restarted under the web server and a worker', () => {
   it('answers cleanly during the outage, then reads, submits and finishes every trial once', async () => {
     tally.tried();
     expect((await get('/api/me')).status).toBe(200);
-    // A trial in hand when the database goes away: queued as a submission queues it, its job
-    // due only after the outage, so the worker cannot have taken it yet.
-    const inHand = await queueCandidateTrial(app!.database.db, world, kernel);
+    // Trials in hand when the database goes away: one running (the worker runs one at a time)
+    // and one queued, its job due only after the outage so the worker cannot have taken it.
+    const running = await submitted('Running at the restart');
+    await waitFor(
+      async () => (await trialsOf(running))[0]?.status === 'running',
+      'the worker to start the first trial',
+      20_000,
+      20,
+    );
+    const queued = await queueCandidateTrial(app!.database.db, world, kernel);
     const jobId = await queue!.boss.send(
       TRIAL_JOB,
-      { trialId: inHand.trialId },
+      { trialId: queued.trialId },
       { retryLimit: 2, retryDelay: 1, expireInSeconds: 600, startAfter: 4 },
     );
     expect(jobId).not.toBeNull();
-    expect((await trialsOf(inHand.candidateId))[0]?.status).toBe('queued');
+    expect((await trialsOf(running))[0]?.status).toBe('running');
+    expect((await trialsOf(queued.candidateId))[0]?.status).toBe('queued');
 
     await cluster!.stop();
     const outageEnds = Date.now() + 2_000;
@@ -174,7 +182,8 @@ describe('PostgreSQL restarted under the web server and a worker', () => {
     );
     const fresh = await submitted('After the restart');
 
-    await expectCompletedOnce(inHand.candidateId, 'the trial queued at the restart to complete');
+    await expectCompletedOnce(running, 'the trial running at the restart to complete');
+    await expectCompletedOnce(queued.candidateId, 'the trial queued at the restart to complete');
     await expectCompletedOnce(fresh, 'the trial submitted after the restart to complete');
     tally.held();
   }, 90_000);
