@@ -19,7 +19,6 @@ export interface PrivateCluster {
   url: string;
   /** A new empty database on it; returns its address. */
   createDatabase(name: string): Promise<string>;
-  restart(): Promise<void>;
   stop(): Promise<void>;
   start(): Promise<void>;
   /** Stops the cluster at once and deletes its folder; safe to call on a half-made cluster. */
@@ -102,9 +101,6 @@ export async function startPrivateCluster(ports: {
       createDatabase: async (name) => {
         await onCluster(url, `create database "${name}"`);
         return withDatabase(url, name);
-      },
-      restart: async () => {
-        await pgCtl(['-m', 'fast', '-w', '-s', '-o', options, 'restart']);
       },
       stop: async () => {
         await pgCtl(['-m', 'fast', '-w', '-s', 'stop']);
