@@ -36,3 +36,8 @@ function shutdown(signal: string) {
 }
 process.on('SIGTERM', () => shutdown('SIGTERM'));
 process.on('SIGINT', () => shutdown('SIGINT'));
+// A promise nobody awaited (a database connection lost mid-query in a library) must not end the
+// web server for every other request on Node 20: log it and keep serving.
+process.on('unhandledRejection', (reason: unknown) => {
+  logger.error({ err: reason }, 'unhandled rejection; the server carries on');
+});

@@ -27,3 +27,9 @@ function shutdown(signal: string) {
 }
 process.on('SIGTERM', () => shutdown('SIGTERM'));
 process.on('SIGINT', () => shutdown('SIGINT'));
+// pg-boss 10 reports a job's end to the database without awaiting it: when the database is gone
+// at that moment the promise rejects with nobody to catch it, which on Node 20 would end the
+// process. The job then stays active until its expiry, when pg-boss retries it; keep working.
+process.on('unhandledRejection', (reason: unknown) => {
+  logger.error({ err: reason }, 'unhandled rejection; the worker carries on');
+});
