@@ -1,16 +1,13 @@
 import { inArray } from 'drizzle-orm';
 import pg from 'pg';
-import { pino } from 'pino';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { submissionSchema } from '@shared/api/candidates.ts';
 import { apiErrorSchema } from '@shared/errors.ts';
-import { loadEnv } from '@server/config/env.ts';
 import { revisions } from '@server/db/schema/revisions.ts';
 import { trials } from '@server/db/schema/trials.ts';
-import { createPgBossQueue, type PgBossQueue } from '@server/jobs/pg-boss-queue.ts';
-import { startTrialWorker } from '@server/jobs/trial-worker.ts';
+import { type PgBossQueue } from '@server/jobs/pg-boss-queue.ts';
 import { readKernelSource } from '@sandbox/kernels/read-kernel-source.ts';
-import { startTestApp, type RunningApp } from '@tests/helpers/test-app.ts';
+import { type RunningApp } from '@tests/helpers/test-app.ts';
 import { createFreshDatabase } from '@tests/integration/server/auth/oauth-flow.ts';
 import {
   createJobWorld,
@@ -18,6 +15,7 @@ import {
   type JobWorld,
 } from '@tests/integration/server/jobs/job-world.ts';
 import { suiteTally } from '@tests/hardening/suite-tally.ts';
+import { startAppWithWorker } from '@tests/helpers/app-with-worker.ts';
 
 // PostgreSQL drops every connection of the app's database while the web server and a trial
 // worker run (pg_terminate_backend on a private database: what a server restart does to its
@@ -49,21 +47,7 @@ async function dropConnections(url: string): Promise<number> {
 
 beforeAll(async () => {
   fresh = await createFreshDatabase(inject('databaseUrl'));
-  const logger = pino({ level: 'silent' });
-  queue = await createPgBossQueue({
-    databaseUrl: fresh.url,
-    logger,
-    trialJobs: { retryDelaySeconds: 1 },
-  });
-  app = await startTestApp(fresh.url, undefined, {}, queue);
-  await startTrialWorker({
-    boss: queue.boss,
-    queue,
-    db: app.database.db,
-    env: loadEnv({ PUBLIC_URL: app.url }),
-    logger,
-    limits: { callTimeoutMs: 2_000, memoryLimitMb: 64 },
-  });
+  ({ app, queue } = await startAppWithWorker(fresh.url));
   world = await createJobWorld(app.database.db, [{ family: 'uniform', n: 6, seed: 1 }], []);
 }, 120_000);
 

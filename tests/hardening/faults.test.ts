@@ -10,13 +10,12 @@ import { migrateDatabase } from '@server/db/migrate.ts';
 import { revisions } from '@server/db/schema/revisions.ts';
 import { trials } from '@server/db/schema/trials.ts';
 import { startFakeSmtpServer, type FakeSmtpServer } from '@server/fake-smtp/fake-smtp-server.ts';
-import { createPgBossQueue, type PgBossQueue } from '@server/jobs/pg-boss-queue.ts';
+import { type PgBossQueue } from '@server/jobs/pg-boss-queue.ts';
 import { TRIAL_JOB } from '@server/jobs/trial-queue.ts';
-import { startTrialWorker } from '@server/jobs/trial-worker.ts';
 import { enqueueEmail, startOutboxSender } from '@server/mail/outbox.ts';
 import { createMailTransport } from '@server/mail/transport.ts';
 import { readKernelSource } from '@sandbox/kernels/read-kernel-source.ts';
-import { startTestApp, type RunningApp } from '@tests/helpers/test-app.ts';
+import { type RunningApp } from '@tests/helpers/test-app.ts';
 import {
   createJobWorld,
   queueCandidateTrial,
@@ -27,6 +26,7 @@ import { matrixRows } from '@tests/integration/server/jobs/trial-readers.ts';
 import { createPrivateDatabase } from '@tests/integration/server/mail/private-database.ts';
 import { startPrivateCluster, type PrivateCluster } from '@tests/hardening/private-cluster.ts';
 import { suiteTally } from '@tests/hardening/suite-tally.ts';
+import { startAppWithWorker } from '@tests/helpers/app-with-worker.ts';
 
 // Faults injected while the service runs, each counted as recovered only when its last check
 // passes: PostgreSQL restarted under the web server and a trial worker (a cluster of this file's
@@ -53,21 +53,7 @@ describe('PostgreSQL restarted under the web server and a worker', () => {
     cluster = await startPrivateCluster({ from: 54500, to: 54520 });
     const url = await cluster.createDatabase('faults');
     await migrateDatabase(url);
-    const logger = pino({ level: 'silent' });
-    queue = await createPgBossQueue({
-      databaseUrl: url,
-      logger,
-      trialJobs: { retryDelaySeconds: 1 },
-    });
-    app = await startTestApp(url, undefined, {}, queue);
-    await startTrialWorker({
-      boss: queue.boss,
-      queue,
-      db: app.database.db,
-      env: loadEnv({ PUBLIC_URL: app.url }),
-      logger,
-      limits: { callTimeoutMs: 2_000, memoryLimitMb: 64 },
-    });
+    ({ app, queue } = await startAppWithWorker(url));
     world = await createJobWorld(app.database.db, matrixSet, []);
   }, 60_000);
 

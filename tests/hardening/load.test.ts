@@ -1,24 +1,22 @@
 import { performance } from 'node:perf_hooks';
 import { inArray, sql } from 'drizzle-orm';
-import { pino } from 'pino';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { loadEnv } from '@server/config/env.ts';
 import { candidates } from '@server/db/schema/candidates.ts';
 import { memberships } from '@server/db/schema/memberships.ts';
 import { revisions } from '@server/db/schema/revisions.ts';
 import { trialMatrixResults } from '@server/db/schema/trial-results.ts';
 import { trials } from '@server/db/schema/trials.ts';
-import { createPgBossQueue, type PgBossQueue } from '@server/jobs/pg-boss-queue.ts';
-import { startTrialWorker } from '@server/jobs/trial-worker.ts';
+import { type PgBossQueue } from '@server/jobs/pg-boss-queue.ts';
 import { readKernelSource } from '@sandbox/kernels/read-kernel-source.ts';
 import { quantileSorted } from '@sandbox/stats/quantiles.ts';
-import { startTestApp, type RunningApp } from '@tests/helpers/test-app.ts';
+import { type RunningApp } from '@tests/helpers/test-app.ts';
 import { createTestUser, type TestUser } from '@tests/helpers/users.ts';
 import {
   createJobWorld,
   waitFor,
   type JobWorld,
 } from '@tests/integration/server/jobs/job-world.ts';
+import { startAppWithWorker } from '@tests/helpers/app-with-worker.ts';
 
 // 50 submissions at once from 10 people, against the app on a loopback port with one trial
 // worker (pg-boss, in this process, in a schema of its own). A tiny matrix set and no timing
@@ -34,22 +32,7 @@ let authors: TestUser[];
 
 beforeAll(async () => {
   const databaseUrl = inject('databaseUrl');
-  const logger = pino({ level: 'silent' });
-  queue = await createPgBossQueue({
-    databaseUrl,
-    logger,
-    schema: 'pgboss_hardening_load',
-    trialJobs: { retryDelaySeconds: 1 },
-  });
-  app = await startTestApp(databaseUrl, undefined, {}, queue);
-  await startTrialWorker({
-    boss: queue.boss,
-    queue,
-    db: app.database.db,
-    env: loadEnv({ PUBLIC_URL: app.url }),
-    logger,
-    limits: { callTimeoutMs: 2_000, memoryLimitMb: 64 },
-  });
+  ({ app, queue } = await startAppWithWorker(databaseUrl, { schema: 'pgboss_hardening_load' }));
   world = await createJobWorld(
     app.database.db,
     [
